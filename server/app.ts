@@ -1,0 +1,104 @@
+import 'reflect-metadata';
+import connectPgSimple from 'connect-pg-simple';
+import express, { type Router } from 'express';
+import session from 'express-session';
+import fs from 'node:fs';
+import path from 'node:path';
+import helmet from 'helmet';
+import type { Pool } from 'pg';
+import type { DataSource } from 'typeorm';
+import { createPassport } from './auth/passport';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { cellarAccess, type CellarAccessPolicy } from './middleware/cellar-access';
+import { requireSignIn } from './middleware/require-sign-in';
+import { authRoutes } from './routes/auth.routes';
+import { cellarListRoutes, cellarSettingsRoutes } from './routes/cellars.routes';
+import { healthRoutes } from './routes/health.routes';
+import { memberRoutes } from './routes/members.routes';
+
+export interface AppOptions {
+  dataSource: DataSource;
+  sessionSecret: string;
+  /** Send the session cookie only over HTTPS. */
+  cookieSecure: boolean;
+  /** Number of proxies in front of the app. */
+  trustProxy?: number;
+  /** Built client to serve (dist/); omitted in API-only tests. */
+  clientDir?: string;
+  /** Failed sign-ins allowed per address and e-mail in 15 minutes. */
+  signInAttempts?: number;
+}
+
+export const SESSION_COOKIE = 'cellarwright.sid';
+
+/** Builds the Express app; `server/index.ts` starts it, tests mount it in-process. */
+export function createApp(options: AppOptions): express.Express {
+  const ds = options.dataSource;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', options.trustProxy ?? 0);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'media-src': ["'self'", 'blob:'],
+          // Phones on the local network reach the app over plain HTTP; do not force HTTPS there.
+          'upgrade-insecure-requests': options.cookieSecure ? [] : null,
+        },
+      },
+      strictTransportSecurity: options.cookieSecure,
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+
+  const PgStore = connectPgSimple(session);
+  // TypeORM's own pg pool serves the session store too: one pool per app.
+  const pool = (ds.driver as unknown as { master: Pool }).master;
+  app.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: options.sessionSecret,
+      store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 60 * 15 }),
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: options.cookieSecure,
+        maxAge: 30 * 24 * 60 * 60 * 1000,
+      },
+    }),
+  );
+  const passport = createPassport(ds);
+  app.use(passport.initialize());
+  app.use(passport.session());
+
+  const api = express.Router();
+  api.use('/health', healthRoutes(ds));
+  api.use('/auth', authRoutes(ds, passport, { signInAttempts: options.signInAttempts ?? 10 }));
+  // Everything about cellars needs a session; unknown /api paths still answer 404.
+  api.use('/cellars', requireSignIn);
+  api.use('/cellars', cellarListRoutes(ds));
+
+  /** Mounts a resource router under a cellar, behind the one access gate. */
+  const inCellar = (resource: string, router: Router, policy: CellarAccessPolicy) =>
+    api.use(`/cellars/:cellarId/${resource}`, cellarAccess(ds, policy), router);
+  inCellar('settings', cellarSettingsRoutes(ds), { write: 'keeper' });
+  inCellar('members', memberRoutes(ds), { write: 'keeper' });
+
+  app.use('/api', api);
+  app.use('/api', apiNotFound);
+
+  if (options.clientDir && fs.existsSync(path.join(options.clientDir, 'index.html'))) {
+    const indexHtml = path.join(options.clientDir, 'index.html');
+    app.use(express.static(options.clientDir, { index: false, maxAge: '1h' }));
+    // Client-side routes: any other GET gets the app shell.
+    app.get('/{*splat}', (_req, res) => res.sendFile(indexHtml));
+  }
+
+  app.use(errorHandler);
+  return app;
+}

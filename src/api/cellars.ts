@@ -1,0 +1,24 @@
+import { z } from 'zod';
+import { cellarSchema, memberSchema, type Cellar, type CellarUpdate, type Member } from '@shared/schemas/cellars';
+import type { Role } from '@shared/roles';
+import { request } from './http';
+
+const base = (cellarId: string) => `/api/cellars/${encodeURIComponent(cellarId)}`;
+
+export const fetchCellar = (cellarId: string): Promise<Cellar> =>
+  request('GET', `${base(cellarId)}/settings`, cellarSchema);
+
+export const updateCellar = (cellarId: string, changes: CellarUpdate): Promise<Cellar> =>
+  request('PATCH', `${base(cellarId)}/settings`, cellarSchema, changes);
+
+export const fetchMembers = (cellarId: string): Promise<Member[]> =>
+  request('GET', `${base(cellarId)}/members`, z.array(memberSchema));
+
+export const addMember = (cellarId: string, email: string, role: Role): Promise<Member> =>
+  request('POST', `${base(cellarId)}/members`, memberSchema, { email, role });
+
+export const changeMemberRole = (cellarId: string, memberId: string, role: Role): Promise<Member[]> =>
+  request('PATCH', `${base(cellarId)}/members/${memberId}`, z.array(memberSchema), { role });
+
+export const removeMember = (cellarId: string, memberId: string): Promise<void> =>
+  request('DELETE', `${base(cellarId)}/members/${memberId}`);

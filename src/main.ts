@@ -1,0 +1,34 @@
+import { createApp } from 'vue';
+import { createPinia } from 'pinia';
+import { Dialog, Loading, Notify, Quasar } from 'quasar';
+import '@fontsource/work-sans/400.css';
+import '@fontsource/work-sans/500.css';
+import '@fontsource/work-sans/600.css';
+import '@fontsource/work-sans/700.css';
+import '@quasar/extras/material-icons/material-icons.css';
+import 'quasar/dist/quasar.css';
+import './css/app.css';
+import App from './App.vue';
+import { setUnauthorizedHandler } from './api/http';
+import { createAppRouter } from './router';
+import { useSessionStore } from './stores/session';
+import { brandColours } from './theme';
+
+const app = createApp(App);
+const pinia = createPinia();
+app.use(pinia);
+app.use(Quasar, {
+  plugins: { Dialog, Loading, Notify },
+  config: { brand: brandColours, notify: { position: 'top', timeout: 3500 } },
+});
+const router = createAppRouter();
+app.use(router);
+
+// A session that ended on the server (expired, signed out elsewhere) sends the user to sign in.
+setUnauthorizedHandler(() => {
+  useSessionStore(pinia).forget();
+  const here = router.currentRoute.value;
+  if (!here.meta.public) void router.push({ name: 'sign-in', query: { next: here.fullPath } });
+});
+
+app.mount('#app');

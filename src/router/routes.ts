@@ -1,0 +1,53 @@
+import type { RouteRecordRaw } from 'vue-router';
+
+/** Every route name, so links and pushes are checked by the compiler. */
+export type RouteName =
+  | 'sign-in'
+  | 'home'
+  | 'today'
+  | 'scan'
+  | 'batches'
+  | 'batch'
+  | 'vessels'
+  | 'vessel'
+  | 'bottles'
+  | 'cellar-map'
+  | 'labels'
+  | 'tasks'
+  | 'calculators'
+  | 'settings'
+  | 'not-found';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Reachable without signing in. */
+    public?: boolean;
+    /** Title shown in the header and the browser tab. */
+    title?: string;
+  }
+}
+
+export const routes: RouteRecordRaw[] = [
+  { path: '/sign-in', name: 'sign-in', component: () => import('@/pages/SignInPage.vue'), meta: { public: true, title: 'Sign in' } },
+  { path: '/', name: 'home', component: () => import('@/pages/HomeRedirect.vue') },
+  {
+    path: '/c/:cellarId',
+    component: () => import('@/layouts/MainLayout.vue'),
+    children: [
+      { path: '', redirect: { name: 'today' } },
+      { path: 'today', name: 'today', component: () => import('@/pages/TodayPage.vue'), meta: { title: 'Today' } },
+      { path: 'scan', name: 'scan', component: () => import('@/pages/ScanPage.vue'), meta: { title: 'Scan' } },
+      { path: 'batches', name: 'batches', component: () => import('@/pages/BatchesPage.vue'), meta: { title: 'Batches' } },
+      { path: 'batches/:batchId', name: 'batch', component: () => import('@/pages/BatchPage.vue'), meta: { title: 'Batch' } },
+      { path: 'vessels', name: 'vessels', component: () => import('@/pages/VesselsPage.vue'), meta: { title: 'Vessels' } },
+      { path: 'vessels/:vesselId', name: 'vessel', component: () => import('@/pages/VesselPage.vue'), meta: { title: 'Vessel' } },
+      { path: 'bottles', name: 'bottles', component: () => import('@/pages/BottlesPage.vue'), meta: { title: 'Bottles' } },
+      { path: 'map', name: 'cellar-map', component: () => import('@/pages/CellarMapPage.vue'), meta: { title: 'Cellar map' } },
+      { path: 'labels', name: 'labels', component: () => import('@/pages/LabelsPage.vue'), meta: { title: 'Labels' } },
+      { path: 'tasks', name: 'tasks', component: () => import('@/pages/TasksPage.vue'), meta: { title: 'Tasks' } },
+      { path: 'calculators', name: 'calculators', component: () => import('@/pages/CalculatorsPage.vue'), meta: { title: 'Calculators' } },
+      { path: 'settings', name: 'settings', component: () => import('@/pages/SettingsPage.vue'), meta: { title: 'Settings' } },
+    ],
+  },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/pages/NotFoundPage.vue'), meta: { public: true, title: 'Not found' } },
+];

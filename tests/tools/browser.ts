@@ -1,0 +1,40 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type BrowserContext } from 'playwright-core';
+
+/** Debian's Chromium; never a browser downloaded by a test tool. */
+export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+
+export function chromiumAvailable(): boolean {
+  return fs.existsSync(CHROMIUM_PATH);
+}
+
+/**
+ * Starts headless Chromium with a fresh profile. The flags keep it from reaching out to
+ * the network on its own (this machine has none, and the page must not need any).
+ */
+export async function launchBrowser(): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM_PATH,
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--disable-dev-shm-usage',
+    ],
+  });
+  return {
+    context,
+    close: async () => {
+      await context.close();
+      fs.rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}

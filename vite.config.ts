@@ -1,0 +1,30 @@
+import { fileURLToPath, URL } from 'node:url';
+import { defineConfig } from 'vite';
+import vue from '@vitejs/plugin-vue';
+import { quasar, transformAssetUrls } from '@quasar/vite-plugin';
+
+const apiTarget = process.env.API_URL ?? 'http://127.0.0.1:8460';
+
+// The client is built into dist/ and served by the Express app; `npm run dev:client`
+// proxies /api to a server started with `npm run dev:server`.
+export default defineConfig({
+  plugins: [
+    vue({ template: { transformAssetUrls } }),
+    // No Sass: Quasar's prebuilt CSS is imported in src/main.ts.
+    quasar({ sassVariables: false }),
+  ],
+  resolve: {
+    alias: {
+      '@': fileURLToPath(new URL('./src', import.meta.url)),
+      '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+    },
+  },
+  server: {
+    host: '127.0.0.1',
+    proxy: { '/api': apiTarget, '/s/': apiTarget },
+  },
+  build: {
+    outDir: 'dist',
+    chunkSizeWarningLimit: 900,
+  },
+});
