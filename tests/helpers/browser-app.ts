@@ -1,0 +1,62 @@
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import path from 'node:path';
+import fs from 'node:fs';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe } from 'vitest';
+import { chromiumAvailable, launchBrowser } from '../tools/browser';
+import { testApp } from './test-app';
+
+const distDir = path.resolve(import.meta.dirname, '../../dist');
+
+/**
+ * Runs an end-to-end suite against the built client (dist/) served by the real app on a
+ * loopback port, in Debian's Chromium. Without Chromium the suite is skipped locally but
+ * fails under CI=true.
+ */
+export function describeInBrowser(name: string, body: (env: () => BrowserEnv) => void): void {
+  const missing = !chromiumAvailable() ? 'Chromium (/usr/bin/chromium)' : !fs.existsSync(path.join(distDir, 'index.html')) ? 'the built client (run `npm run build`)' : null;
+  if (missing && process.env.CI !== 'true') {
+    describe.skip(`${name} (needs ${missing})`, () => body(() => { throw new Error('skipped'); }));
+    return;
+  }
+  describe(name, () => {
+    let env: BrowserEnv | undefined;
+    let server: Server;
+    let closeBrowser: () => Promise<void>;
+    beforeAll(async () => {
+      if (missing) throw new Error(`End-to-end tests need ${missing}; .ci/run installs it.`);
+      const { app, ds } = await testApp({ clientDir: distDir });
+      server = await new Promise<Server>((resolve) => {
+        const s = app.listen(0, '127.0.0.1', () => resolve(s));
+      });
+      const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+      const browser = await launchBrowser();
+      closeBrowser = browser.close;
+      env = { baseUrl, context: browser.context, ds };
+    });
+    afterAll(async () => {
+      await closeBrowser?.();
+      await new Promise((resolve) => server?.close(resolve));
+    });
+    body(() => {
+      if (!env) throw new Error('browser environment not ready');
+      return env;
+    });
+  });
+}
+
+export interface BrowserEnv {
+  baseUrl: string;
+  context: BrowserContext;
+  ds: Awaited<ReturnType<typeof testApp>>['ds'];
+}
+
+/** Signs in through the sign-in form and waits for the Today screen. */
+export async function signInThroughForm(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.fill('[data-test=email]', email);
+  await page.fill('[data-test=password]', password);
+  await page.click('[data-test=sign-in]');
+  await page.waitForURL(/\/c\/[^/]+\/today$/);
+}

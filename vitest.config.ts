@@ -1,0 +1,33 @@
+import { defineConfig, mergeConfig } from 'vitest/config';
+import viteConfig from './vite.config.ts';
+
+/**
+ * Two tiers: `unit` (pure code: shared/calc, helpers) and `db` (API over HTTP against the
+ * in-process app and a real PostgreSQL started by the global setup, plus Chromium end-to-end).
+ */
+export default mergeConfig(
+  viteConfig,
+  defineConfig({
+    // TypeORM entities use legacy decorators with metadata.
+    oxc: { decorator: { legacy: true, emitDecoratorMetadata: true } },
+    test: {
+      projects: [
+        {
+          extends: true,
+          test: { name: 'unit', include: ['tests/calc/**/*.test.ts', 'tests/unit/**/*.test.ts'], environment: 'node' },
+        },
+        {
+          extends: true,
+          test: {
+            name: 'db',
+            include: ['tests/api/**/*.test.ts', 'tests/e2e/**/*.test.ts'],
+            environment: 'node',
+            globalSetup: ['tests/setup/global-setup.ts'],
+            testTimeout: 30_000,
+            hookTimeout: 60_000,
+          },
+        },
+      ],
+    },
+  }),
+);
