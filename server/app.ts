@@ -15,6 +15,15 @@ import { authRoutes } from './routes/auth.routes';
 import { cellarListRoutes, cellarSettingsRoutes } from './routes/cellars.routes';
 import { healthRoutes } from './routes/health.routes';
 import { memberRoutes } from './routes/members.routes';
+import { batchRoutes } from './routes/batches.routes';
+import { bottlingRoutes } from './routes/bottling.routes';
+import { caseRoutes } from './routes/cases.routes';
+import { labelRoutes } from './routes/labels.routes';
+import { lotRoutes } from './routes/lots.routes';
+import { photoRoutes } from './routes/photos.routes';
+import { rackRoutes } from './routes/racks.routes';
+import { scanRoutes } from './routes/scan.routes';
+import { vesselRoutes } from './routes/vessels.routes';
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -88,9 +97,22 @@ export function createApp(options: AppOptions): express.Express {
     api.use(`/cellars/:cellarId/${resource}`, cellarAccess(ds, policy), router);
   inCellar('settings', cellarSettingsRoutes(ds), { write: 'keeper' });
   inCellar('members', memberRoutes(ds), { write: 'keeper' });
+  inCellar('racks', rackRoutes(ds), { write: 'hand' });
+  inCellar('vessels', vesselRoutes(ds), { write: 'hand' });
+  // Bottling and photo uploads sit under a batch but have routers of their own.
+  const photos = photoRoutes(ds);
+  inCellar('batches/:batchId/bottlings', bottlingRoutes(ds), { write: 'hand' });
+  inCellar('batches/:batchId/photos', photos.upload, { write: 'hand' });
+  inCellar('batches', batchRoutes(ds), { write: 'hand' });
+  inCellar('lots', lotRoutes(ds), { write: 'hand' });
+  inCellar('cases', caseRoutes(ds), { write: 'hand' });
+  inCellar('photos', photos.serve, { write: 'hand' });
+  inCellar('labels', labelRoutes(ds), { write: 'hand' });
 
   app.use('/api', api);
   app.use('/api', apiNotFound);
+  // Printed label URLs; outside /api because phones open them directly.
+  app.use(scanRoutes(ds));
 
   if (options.clientDir && fs.existsSync(path.join(options.clientDir, 'index.html'))) {
     const indexHtml = path.join(options.clientDir, 'index.html');

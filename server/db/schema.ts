@@ -1,10 +1,37 @@
+import { BatchParent } from '../entities/batch-parent.entity';
+import { Batch } from '../entities/batch.entity';
+import { BottleCaseRow } from '../entities/bottle-case.entity';
+import { BottleDeparture } from '../entities/bottle-departure.entity';
+import { BottleLotRow } from '../entities/bottle-lot.entity';
 import { Cellar } from '../entities/cellar.entity';
+import { JournalEntryRow } from '../entities/journal-entry.entity';
 import { Membership } from '../entities/membership.entity';
+import { Photo } from '../entities/photo.entity';
+import { Placement } from '../entities/placement.entity';
+import { Rack } from '../entities/rack.entity';
+import { Shelf } from '../entities/shelf.entity';
 import { User } from '../entities/user.entity';
+import { Vessel } from '../entities/vessel.entity';
 import { CreateAccounts1796170000000 } from './migrations/1796170000000-CreateAccounts';
+import { CreateCellarRecords1796170100000 } from './migrations/1796170100000-CreateCellarRecords';
 
 /** Every entity, listed by hand (glob paths do not work under Vitest). */
-export const entities = [User, Cellar, Membership];
+export const entities = [
+  User,
+  Cellar,
+  Membership,
+  Rack,
+  Shelf,
+  Placement,
+  Vessel,
+  Batch,
+  BatchParent,
+  JournalEntryRow,
+  Photo,
+  BottleLotRow,
+  BottleCaseRow,
+  BottleDeparture,
+];
 
 /** Every migration, oldest first. Add a new one at the end. */
-export const migrations = [CreateAccounts1796170000000];
+export const migrations = [CreateAccounts1796170000000, CreateCellarRecords1796170100000];

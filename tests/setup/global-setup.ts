@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
@@ -24,6 +25,9 @@ function freePort(): Promise<number> {
 }
 
 let cluster: LocalPostgres | undefined;
+let clusterDir: string | undefined;
+// Each run gets its own cluster and database, so parallel runs never trip over each other.
+const databaseName = `cellarwright_test_${process.pid}`;
 
 /**
  * Starts a throwaway PostgreSQL cluster on loopback (or uses TEST_DATABASE_URL's server),
@@ -33,16 +37,18 @@ export async function setup(project: TestProject): Promise<void> {
   let adminUrl = process.env.TEST_DATABASE_ADMIN_URL;
   let urlFor = (db: string) => adminUrl!.replace(/\/[^/]*$/, `/${db}`);
   if (!adminUrl) {
+    clusterDir = fs.mkdtempSync(path.join(os.tmpdir(), 'cellarwright-test-'));
+    fs.chmodSync(clusterDir, 0o755);
     cluster = startLocalPostgres({
-      dataDir: path.join(os.tmpdir(), `cellarwright-test-pg-${process.getuid?.() ?? 'user'}`),
+      dataDir: path.join(clusterDir, 'pg'),
       port: await freePort(),
       log: () => undefined,
     });
     adminUrl = cluster.adminUrl;
     urlFor = cluster.urlFor;
   }
-  await recreateDatabase(adminUrl, 'cellarwright_test');
-  const databaseUrl = urlFor('cellarwright_test');
+  await recreateDatabase(adminUrl, databaseName);
+  const databaseUrl = urlFor(databaseName);
   const ds = createDataSource(databaseUrl);
   await ds.initialize();
   await ds.runMigrations({ transaction: 'each' });
@@ -55,4 +61,5 @@ export async function setup(project: TestProject): Promise<void> {
 
 export async function teardown(): Promise<void> {
   cluster?.stop();
+  if (clusterDir) fs.rmSync(clusterDir, { recursive: true, force: true });
 }
