@@ -1,12 +1,13 @@
 #!/usr/bin/env bash
 # Makes sure the Debian packages the tests need are here: PostgreSQL's server binaries and
-# Chromium (for the end-to-end tests). As root it installs what is missing with apt-get;
+# Chromium (for the end-to-end tests) and poppler-utils (pdftoppm, to read back label PDFs). As root it installs what is missing with apt-get;
 # otherwise it says what to install. Runs before `npm test` (the `pretest` script).
 set -euo pipefail
 
 missing=()
 compgen -G '/usr/lib/postgresql/*/bin/initdb' >/dev/null || command -v initdb >/dev/null || missing+=(postgresql)
 [ -x "${CHROMIUM_PATH:-/usr/bin/chromium}" ] || missing+=(chromium)
+command -v pdftoppm >/dev/null || missing+=(poppler-utils)
 
 [ ${#missing[@]} -eq 0 ] && exit 0
 
