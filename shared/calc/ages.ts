@@ -1,0 +1,72 @@
+/**
+ * Ages and milestones. Calendar arithmetic is done in UTC: pass ISO dates
+ * (YYYY-MM-DD, read as UTC midnight) or instants; converting to the cellar's
+ * own time zone is the caller's job.
+ */
+import { CalcInputError, requireDate, requireInteger } from './guards';
+
+const DAY_MS = 86_400_000;
+
+/** Milestones the cellar tracks by default, in months since the start. */
+export const AGE_MILESTONE_MONTHS: readonly number[] = [3, 6, 12];
+
+/**
+ * Whole days from `a` to `b` (complete 24-hour periods; negative when `b` is earlier).
+ * @param a - the earlier date (Date or ISO 8601 string)
+ * @param b - the later date (Date or ISO 8601 string)
+ */
+export function daysBetween(a: Date | string, b: Date | string): number {
+  const from = requireDate(a, 'a', 'Start date');
+  const to = requireDate(b, 'b', 'End date');
+  const days = (to.getTime() - from.getTime()) / DAY_MS;
+  const whole = Math.floor(Math.abs(days));
+  return days < 0 ? -whole : whole;
+}
+
+/**
+ * The same day-of-month `months` calendar months later, in UTC; a day that the
+ * target month lacks falls back to its last day (31 Jan + 1 month = 28/29 Feb).
+ * @param date - the starting date (Date or ISO 8601 string)
+ * @param months - whole months to add (zero or more)
+ */
+export function addMonths(date: Date | string, months: number): Date {
+  const d = requireDate(date, 'date', 'Date');
+  const m = requireInteger(months, 'months', 'Months', 0, 12_000);
+  const y = d.getUTCFullYear();
+  const targetMonth = d.getUTCMonth() + m;
+  const lastDay = new Date(Date.UTC(y, targetMonth + 1, 0)).getUTCDate();
+  const out = new Date(d.getTime());
+  out.setUTCFullYear(y, targetMonth, Math.min(d.getUTCDate(), lastDay));
+  return out;
+}
+
+/** One age milestone. */
+export interface AgeMilestone {
+  /** Months after the start. */
+  months: number;
+  /** When it falls. */
+  date: Date;
+  /** Whether `now` is on or after it. */
+  reached: boolean;
+}
+
+/**
+ * Which ageing milestones (3, 6 and 12 months by default) a batch or bottling has reached.
+ * @param start - when the ageing started (Date or ISO 8601 string)
+ * @param now - the moment to judge at
+ * @param months - milestones to check, in whole months
+ */
+export function ageMilestones(
+  start: Date | string,
+  now: Date | string,
+  months: readonly number[] = AGE_MILESTONE_MONTHS,
+): AgeMilestone[] {
+  const s = requireDate(start, 'start', 'Start date');
+  const n = requireDate(now, 'now', 'Date of judgement');
+  if (!Array.isArray(months)) throw new CalcInputError('months', 'Milestones must be a list of month counts.');
+  return months.map((m, i) => {
+    const whole = requireInteger(m, `months[${i}]`, `Milestone ${i + 1}`, 1, 1200);
+    const date = addMonths(s, whole);
+    return { months: whole, date, reached: n.getTime() >= date.getTime() };
+  });
+}

@@ -1,0 +1,133 @@
+import { describe, it, expect } from 'vitest';
+import {
+  daysBetween,
+  addMonths,
+  ageMilestones,
+  annualVolumeUsage,
+  US_HOME_WINE_LIMIT_L,
+} from '../../shared/calc';
+import { expectInputError } from './expect-input-error';
+
+// Gregorian calendar facts: 2024 is a leap year (366 days, 29 February), 2023 is not.
+describe('daysBetween', () => {
+  it.each([
+    ['2023-01-01', '2024-01-01', 365],
+    ['2024-01-01', '2025-01-01', 366],
+    ['2024-02-28', '2024-03-01', 2],
+    ['2023-02-28', '2023-03-01', 1],
+    ['2024-03-10', '2024-03-10', 0],
+    ['2024-03-10', '2024-03-01', -9],
+  ])('%s to %s is %s days', (a, b, days) => {
+    expect(daysBetween(a, b)).toBe(days);
+  });
+
+  it('counts only complete days', () => {
+    expect(daysBetween('2024-03-01T00:00:00Z', '2024-03-02T23:00:00Z')).toBe(1);
+    expect(daysBetween(new Date('2024-03-02T23:00:00Z'), new Date('2024-03-01T00:00:00Z'))).toBe(-1);
+  });
+
+  it('rejects dates that are not dates', () => {
+    expectInputError(() => daysBetween('yesterday', '2024-01-01'), 'a');
+    expectInputError(() => daysBetween('2024-01-01', new Date(Number.NaN)), 'b');
+    expectInputError(() => daysBetween('', '2024-01-01'), 'a');
+  });
+});
+
+describe('addMonths', () => {
+  it.each([
+    ['2024-01-31', 1, '2024-02-29'], // leap-year February
+    ['2023-01-31', 1, '2023-02-28'],
+    ['2024-08-31', 1, '2024-09-30'],
+    ['2024-11-15', 3, '2025-02-15'],
+    ['2024-01-15', 12, '2025-01-15'],
+    ['2024-02-29', 12, '2025-02-28'],
+  ] as const)('%s plus %s months is %s', (start, months, expected) => {
+    expect(addMonths(start, months).toISOString().slice(0, 10)).toBe(expected);
+  });
+
+  it('rejects part months and negative months', () => {
+    expectInputError(() => addMonths('2024-01-01', 1.5), 'months');
+    expectInputError(() => addMonths('2024-01-01', -1), 'months');
+  });
+});
+
+describe('ageMilestones — 3, 6 and 12 calendar months', () => {
+  const reached = (start: string, now: string) =>
+    ageMilestones(start, now)
+      .filter((m) => m.reached)
+      .map((m) => m.months);
+
+  it.each([
+    ['2024-01-15', '2024-04-14', []],
+    ['2024-01-15', '2024-04-15', [3]],
+    ['2024-01-15', '2024-07-14', [3]],
+    ['2024-01-15', '2024-07-15', [3, 6]],
+    ['2024-01-15', '2025-01-14', [3, 6]],
+    ['2024-01-15', '2025-01-15', [3, 6, 12]],
+    ['2023-11-30', '2024-02-29', [3]], // 30 Nov + 3 months falls back to 29 Feb 2024
+  ])('started %s, on %s: reached %j', (start, now, months) => {
+    expect(reached(start, now)).toEqual(months);
+  });
+
+  it('gives the date of each milestone', () => {
+    const m = ageMilestones('2024-01-31', '2024-02-01');
+    expect(m.map((x) => x.date.toISOString().slice(0, 10))).toEqual(['2024-04-30', '2024-07-31', '2025-01-31']);
+  });
+
+  it('takes the cellar’s own milestones', () => {
+    const m = ageMilestones('2024-01-01', '2024-03-01', [1, 2, 18]);
+    expect(m.map((x) => [x.months, x.reached])).toEqual([
+      [1, true],
+      [2, true],
+      [18, false],
+    ]);
+  });
+
+  it('rejects bad dates and milestones', () => {
+    expectInputError(() => ageMilestones('nope', '2024-01-01'), 'start');
+    expectInputError(() => ageMilestones('2024-01-01', 'nope'), 'now');
+    expectInputError(() => ageMilestones('2024-01-01', '2024-02-01', [3, 0]), 'months[1]');
+    expectInputError(() => ageMilestones('2024-01-01', '2024-02-01', 'x' as never), 'months');
+  });
+});
+
+describe('annual production against a limit', () => {
+  it('US federal reference: 100 gal for one adult, 200 for two or more (27 CFR 24.75(a)), in litres', () => {
+    // 1 US gal = 231 in³ × (2.54 cm)³ (NIST Handbook 44, Appendix C).
+    const gallon = (231 * 2.54 ** 3) / 1000;
+    expect(US_HOME_WINE_LIMIT_L.oneAdult).toBeCloseTo(100 * gallon, 9);
+    expect(US_HOME_WINE_LIMIT_L.twoOrMoreAdults).toBeCloseTo(200 * gallon, 9);
+  });
+
+  it('adds up the year’s batches against the limit', () => {
+    const u = annualVolumeUsage({ volumesL: [23, 19, 4.5], limitL: 378.5411784 });
+    expect(u.totalL).toBeCloseTo(46.5, 9);
+    expect(u.remainingL).toBeCloseTo(378.5411784 - 46.5, 9);
+    expect(u.percentUsed).toBeCloseTo((46.5 / 378.5411784) * 100, 9);
+    expect(u.over).toBe(false);
+  });
+
+  it('says when the year is over the limit', () => {
+    const u = annualVolumeUsage({ volumesL: [200, 200], limitL: US_HOME_WINE_LIMIT_L.oneAdult });
+    expect(u.over).toBe(true);
+    expect(u.remainingL).toBe(0);
+    expect(u.percentUsed).toBeGreaterThan(100);
+  });
+
+  it('is empty for a year with no batches', () => {
+    expect(annualVolumeUsage({ volumesL: [], limitL: 100 })).toEqual({
+      totalL: 0,
+      limitL: 100,
+      remainingL: 100,
+      percentUsed: 0,
+      over: false,
+    });
+  });
+
+  it('rejects impossible input, naming the argument', () => {
+    expectInputError(() => annualVolumeUsage({ volumesL: [10, -2], limitL: 100 }), 'volumesL[1]');
+    expectInputError(() => annualVolumeUsage({ volumesL: [10], limitL: 0 }), 'limitL');
+    expectInputError(() => annualVolumeUsage({ volumesL: [Number.NaN], limitL: 100 }), 'volumesL[0]');
+    expectInputError(() => annualVolumeUsage({ volumesL: 5 as never, limitL: 100 }), 'volumesL');
+  });
+});
