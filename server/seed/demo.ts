@@ -4,6 +4,7 @@ import { hashPassword } from '../auth/passwords';
 import { Cellar } from '../entities/cellar.entity';
 import { Membership } from '../entities/membership.entity';
 import { User } from '../entities/user.entity';
+import { seedDemoRecords } from './demo-cellar';
 
 /** Shared by every demo account; printed at start-up. Demo only. */
 export const DEMO_PASSWORD = 'demo-cellar-2026';
@@ -44,6 +45,10 @@ export async function seedDemoIfEmpty(ds: DataSource): Promise<boolean> {
     await addMember(tx, home, maren, 'keeper');
     await addMember(tx, home, tobias, 'hand');
     await addMember(tx, home, ilse, 'guest');
+    await seedDemoRecords(tx, {
+      keeper: { cellarId: home.id, role: 'keeper', userId: maren.id },
+      hand: { cellarId: home.id, role: 'hand', userId: tobias.id },
+    });
 
     const club = await cellars.save(
       cellars.create({ name: 'Brackenford Mead Circle', unitSystem: 'us', timeZone: 'America/Chicago', sanitisedValidDays: 5, headspaceWarnPercent: 4, annualLimitL: 757.08 }),

@@ -1,0 +1,82 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { fermentationState } from '../../shared/calc';
+import { vesselState } from '../../shared/domain/vessel-state';
+import { seedDemoRecords } from '../../server/seed/demo-cellar';
+import { makeCellarWithCrew, type CellarCrew } from '../helpers/factories';
+import { testDataSource } from '../helpers/test-app';
+
+/** The demo must show what the brief promises: one of each stage and state. */
+describe('demo cellar', () => {
+  let crew: CellarCrew;
+  let ds: Awaited<ReturnType<typeof testDataSource>>;
+  const now = new Date();
+
+  beforeAll(async () => {
+    ds = await testDataSource();
+    crew = await makeCellarWithCrew(ds, 'Demo under test');
+    await ds.transaction((tx) =>
+      seedDemoRecords(
+        tx,
+        {
+          keeper: { cellarId: crew.cellar.id, role: 'keeper', userId: crew.keeper.id },
+          hand: { cellarId: crew.cellar.id, role: 'hand', userId: crew.hand.id },
+        },
+        now,
+      ),
+    );
+  });
+
+  async function batch(name: string) {
+    const [row] = await ds.query(`SELECT * FROM batches WHERE cellar_id = $1 AND name = $2`, [crew.cellar.id, name]);
+    const readings: { at: Date; sg: string }[] = await ds.query(
+      `SELECT occurred_at AS at, (payload->>'correctedSg') AS sg FROM journal_entries WHERE batch_id = $1 AND kind = 'reading'`,
+      [row.id],
+    );
+    const state = fermentationState({ og: Number(row.og), toleranceAbv: Number(row.yeast_tolerance_abv), readings: readings.map((r) => ({ at: r.at, sg: Number(r.sg) })), now });
+    return { row, state };
+  }
+
+  it('has a batch in primary that is active, one stuck, one ageing past six months, one on oak, one bottled', async () => {
+    const primary = await batch('Hawthorn Hollow Traditional');
+    expect(primary.row.stage).toBe('primary');
+    expect(primary.state).toBe('active');
+
+    const stuck = await batch('Stubborn Quince Cyser');
+    expect(stuck.row.stage).toBe('secondary');
+    expect(stuck.state).toBe('stuck');
+
+    const ageing = await batch('Linden Blossom Metheglin');
+    expect(ageing.row.stage).toBe('bulk-ageing');
+    expect(ageing.state).toBe('finished');
+    const started = new Date(ageing.row.started_on);
+    expect(now.getTime() - started.getTime()).toBeGreaterThan(183 * 86_400_000);
+
+    const oak = await batch('Blackcurrant Melomel');
+    const [oakEntry] = await ds.query(`SELECT payload FROM journal_entries WHERE batch_id = $1 AND payload->>'category' = 'oak'`, [oak.row.id]);
+    expect(new Date(oakEntry.payload.removeOn).getTime()).toBeGreaterThan(now.getTime());
+
+    const cider = await batch('Orchard Gate Cider');
+    expect(cider.row.stage).toBe('bottled');
+    const [{ left }] = await ds.query(
+      `SELECT SUM(c.bottles_left)::int AS left FROM bottle_cases c JOIN bottle_lots l ON l.id = c.lot_id WHERE l.batch_id = $1`,
+      [cider.row.id],
+    );
+    expect(left).toBe(42 - 9);
+  });
+
+  it('has about a dozen vessels on two racks, with free sanitised ones and a lapsed one', async () => {
+    const vessels = await ds.query(`SELECT * FROM vessels WHERE cellar_id = $1`, [crew.cellar.id]);
+    expect(vessels.length).toBeGreaterThanOrEqual(10);
+    const states = vessels.map((v: { batch_id: string | null; retired_at: Date | null; cleaning_state: 'dirty' | 'clean' | 'sanitised'; sanitised_at: Date | null; name: string }) => [
+      v.name,
+      vesselState({ batchId: v.batch_id, retiredAt: v.retired_at, cleaningState: v.cleaning_state, sanitisedAt: v.sanitised_at }, 7, now),
+    ]);
+    const byName = Object.fromEntries(states);
+    expect(byName['Demi 2']).toBe('sanitised');
+    expect(byName['Demi 3']).toBe('clean');
+    expect(byName['Little oak']).toBe('retired');
+    expect(byName['Carboy A']).toBe('holding');
+    const racks = await ds.query(`SELECT count(*)::int AS n FROM racks WHERE cellar_id = $1`, [crew.cellar.id]);
+    expect(racks[0].n).toBe(2);
+  });
+});
