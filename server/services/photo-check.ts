@@ -15,9 +15,11 @@ export type PhotoMime = (typeof MIME_BY_FORMAT)[keyof typeof MIME_BY_FORMAT];
 
 const NOT_A_PHOTO = 'That file is not a photo we can read. Send a JPEG, PNG or WebP picture.';
 
-/** A checked photo: its real type (from its bytes) and a thumbnail. */
+/** A checked photo: its real type (from its bytes), the copy we keep, and a thumbnail. */
 export interface CheckedPhoto {
   mimeType: PhotoMime;
+  /** Upright, re-encoded without EXIF: a phone photo's GPS position must not leave the cellar's members' hands. */
+  stored: Buffer;
   thumbnail: Buffer;
 }
 
@@ -45,7 +47,10 @@ export async function checkPhoto(bytes: Buffer): Promise<CheckedPhoto> {
       .resize({ width: THUMBNAIL_MAX_PX, height: THUMBNAIL_MAX_PX, fit: 'inside', withoutEnlargement: true })
       .webp({ quality: 75 })
       .toBuffer();
-    return { mimeType: MIME_BY_FORMAT[format], thumbnail };
+    // sharp writes no metadata unless asked, so this drops EXIF (location, device) too.
+    const upright = sharp(bytes, options).autoOrient();
+    const stored = await (format === 'jpeg' ? upright.jpeg({ quality: 90 }) : format === 'png' ? upright.png() : upright.webp({ quality: 90 })).toBuffer();
+    return { mimeType: MIME_BY_FORMAT[format], stored, thumbnail };
   } catch {
     throw new UnsupportedMediaError('That picture is damaged or too large to read. Try another copy of it.');
   }
