@@ -1,0 +1,65 @@
+import { formatMass, type FermentationState, type Strength, type Sweetness, type UnitSystem } from '@shared/calc';
+
+/**
+ * A number to a fixed count of decimals, never "-0".
+ * @param value - the number
+ * @param decimals - decimals to show
+ */
+export function fixed(value: number, decimals: number): string {
+  const s = value.toFixed(decimals);
+  return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
+}
+
+/** A specific gravity as a hydrometer shows it (1.010). */
+export const sg = (value: number) => fixed(value, 3);
+
+/** % ABV to one decimal: a hydrometer reading supports no more. */
+export const abv = (value: number) => `${fixed(value, 1)} % ABV`;
+
+/**
+ * A small dose (stabilisers) in grams, as kitchen and jeweller's scales weigh it; US units add ounces.
+ * @param kilograms - the dose in kg
+ * @param system - the page's units
+ */
+export function dose(kilograms: number, system: UnitSystem): string {
+  const grams = kilograms * 1000;
+  const metric = grams < 1000 ? `${fixed(grams, grams < 10 ? 2 : 1)} g` : formatMass(kilograms, 'metric');
+  return system === 'us' && kilograms > 0 ? `${metric} (${formatMass(kilograms, 'us')})` : metric;
+}
+
+/** Plain words for the library's sweetness classes. */
+export const SWEETNESS_WORDS: Record<Sweetness, string> = { dry: 'Dry', 'semi-sweet': 'Semi-sweet', sweet: 'Sweet' };
+
+/** Plain words for the library's strength classes. */
+export const STRENGTH_WORDS: Record<Strength, string> = { hydromel: 'Hydromel', standard: 'Standard', sack: 'Sack' };
+
+/** Plain words and a one-line meaning for each fermentation state. */
+export const STATE_WORDS: Record<FermentationState, { label: string; meaning: string; colour: string }> = {
+  active: { label: 'Active', meaning: 'Still fermenting well, or too few readings to judge yet.', colour: 'info' },
+  slowing: { label: 'Slowing', meaning: 'Still dropping, but slowly: keep taking readings.', colour: 'secondary' },
+  finished: { label: 'Finished', meaning: 'Steady at or near the expected finish.', colour: 'positive' },
+  stuck: {
+    label: 'Stuck',
+    meaning: 'Steady, but well above the expected finish while the yeast is short of its tolerance.',
+    colour: 'negative',
+  },
+};
+
+/**
+ * Today's date as YYYY-MM-DD in this device's time zone, optionally shifted by whole days.
+ * @param offsetDays - days to add (negative for the past)
+ */
+export function isoDate(offsetDays = 0): string {
+  const d = new Date();
+  d.setDate(d.getDate() + offsetDays);
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}`;
+}
+
+/**
+ * A UTC date (as the library returns them) as a readable day.
+ * @param date - the date
+ */
+export function readableDate(date: Date): string {
+  return date.toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
+}
