@@ -1,4 +1,4 @@
-import type { EntityManager } from 'typeorm';
+import { QueryFailedError, type EntityManager } from 'typeorm';
 import type { SlotRef } from '../../shared/schemas/vessels';
 import { Placement } from '../entities/placement.entity';
 import { Shelf } from '../entities/shelf.entity';
@@ -31,9 +31,19 @@ export async function placeThing(
   if (to.slot > shelf.slotCount) {
     throw new BadRequestError(`Shelf ${shelf.number} of ${shelf.rack.name} has ${shelf.slotCount} slots; there is no slot ${to.slot}.`);
   }
-  const taken = await repo.findOneBy({ shelfId: to.shelfId, slot: to.slot });
-  if (taken) throw new ConflictError(`Slot ${to.slot} on shelf ${shelf.number} of ${shelf.rack.name} is already taken.`);
-  await repo.save(repo.create({ cellarId, shelfId: to.shelfId, slot: to.slot, vesselId: null, caseId: null, ...thing }));
+  const slotTaken = () => new ConflictError(`Slot ${to.slot} on shelf ${shelf.number} of ${shelf.rack.name} is already taken.`);
+  if (await repo.existsBy({ shelfId: to.shelfId, slot: to.slot })) throw slotTaken();
+  try {
+    await repo.insert({ cellarId, shelfId: to.shelfId, slot: to.slot, vesselId: null, caseId: null, ...thing });
+  } catch (err) {
+    // Someone else took the slot (or moved the thing) between the check and the insert.
+    const constraint = err instanceof QueryFailedError ? (err.driverError as { constraint?: string }).constraint : undefined;
+    if (constraint === 'uq_placements_slot') throw slotTaken();
+    if (constraint === 'uq_placements_vessel' || constraint === 'uq_placements_case') {
+      throw new ConflictError('It was just moved by someone else. Reload and try again.');
+    }
+    throw err;
+  }
 }
 
 /** Where things are, for many vessels or cases at once (one query). */

@@ -36,6 +36,12 @@ export const rackCreateSchema = z.object({
 });
 export type RackCreate = z.input<typeof rackCreateSchema>;
 
+/** Renaming and re-describing; shelves are set when the rack is made. */
+export const rackUpdateSchema = z.object({
+  name: rackCreateSchema.shape.name.optional(),
+  description: z.string().trim().max(200).optional(),
+});
+
 /** Where to put a thing; `null` takes it off its shelf. */
 export const moveSchema = z.object({
   to: z
