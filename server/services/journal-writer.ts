@@ -3,6 +3,7 @@ import { deriveStage } from '../../shared/domain/stage';
 import type { JournalPayload } from '../../shared/schemas/journal';
 import { Batch } from '../entities/batch.entity';
 import { JournalEntryRow } from '../entities/journal-entry.entity';
+import { inheritedHistory } from './batch-lineage';
 import type { CellarContext } from './cellar.service';
 
 /**
@@ -33,8 +34,13 @@ export async function appendEntry(
   return row;
 }
 
-/** Recomputes stage, last racking and last reading (amendments applied) from the journal. */
+/**
+ * Recomputes stage, last racking and last reading (amendments applied) from the journal,
+ * counting what a split or blended batch inherited from its parents.
+ */
 export async function refreshBatchCaches(tx: EntityManager, batchId: string): Promise<void> {
+  // Lock first: a second writer then waits here and reads the first one's entries once it commits.
+  await tx.query(`SELECT id FROM batches WHERE id = $1 FOR UPDATE`, [batchId]);
   const entries: { id: string; kind: JournalPayload['kind']; payload: JournalPayload; occurred_at: Date; amends_entry_id: string | null }[] =
     await tx.query(
       `SELECT id, kind, payload, occurred_at, amends_entry_id FROM journal_entries
@@ -63,18 +69,21 @@ export async function refreshBatchCaches(tx: EntityManager, batchId: string): Pr
     .sort((a, b) => a.at.getTime() - b.at.getTime());
   const lastReading = readings.at(-1);
   const rackings = entries.filter((e) => e.kind === 'racked');
+  const inherited = await inheritedHistory(tx, batchId);
+  const ownLastRacking = rackings.at(-1)?.occurred_at ?? null;
 
   const stage = deriveStage({
     kinds: entries.map((e) => e.kind),
-    hasStabiliser: entries.some((e) => e.payload.kind === 'addition' && e.payload.category === 'stabiliser'),
+    hasStabiliser: inherited.stabilised || entries.some((e) => e.payload.kind === 'addition' && e.payload.category === 'stabiliser'),
     volumeInVesselsL: Number(volume),
     bottlesLeft: Number(bottles),
+    inheritedRackings: inherited.rackings,
   });
   await tx.getRepository(Batch).update(
     { id: batchId },
     {
       stage,
-      lastRackedAt: rackings.at(-1)?.occurred_at ?? null,
+      lastRackedAt: ownLastRacking ?? inherited.lastRackedAt,
       lastReadingSg: lastReading?.sg ?? null,
       lastReadingAt: lastReading?.at ?? null,
     },

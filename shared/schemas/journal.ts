@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { gravitySchema, isoDateSchema } from './batches';
+import { batchKindSchema, gravitySchema, isoDateSchema } from './batches';
 
 /** A vessel as the journal remembers it (names can change later). */
 const vesselVolume = z.object({ vesselId: z.uuid(), vesselName: z.string(), volumeL: z.number() });
@@ -124,7 +124,7 @@ export type RackRequest = z.input<typeof rackRequestSchema>;
 export const splitRequestSchema = z.object({
   vessels: z.array(vesselRef).min(1, 'choose the vessel(s) that become the new batch'),
   name: z.string().trim().min(1, 'name the new batch').max(80),
-  kind: z.string().min(1),
+  kind: batchKindSchema,
   at: when,
 });
 
@@ -132,7 +132,7 @@ export const blendRequestSchema = z.object({
   from: z.array(vesselRef).min(2, 'choose vessels of at least two batches'),
   to: z.array(vesselFill).min(1, 'choose the vessel(s) to blend into'),
   name: z.string().trim().min(1, 'name the blend').max(80),
-  kind: z.string().min(1),
+  kind: batchKindSchema,
   override: z.object({ reason: z.string().trim().min(3, 'say why').max(200) }).optional(),
   at: when,
 });

@@ -1,0 +1,88 @@
+import type { EntityManager } from 'typeorm';
+import { CalcInputError } from '../../shared/calc';
+import { Batch } from '../entities/batch.entity';
+import { Cellar } from '../entities/cellar.entity';
+import { Vessel } from '../entities/vessel.entity';
+import { BadRequestError, ConflictError, NotFoundError } from '../errors';
+
+const NO_SUCH_BATCH = 'No such batch in this cellar.';
+/** Clocks on phones drift; a few minutes ahead is not "the future". */
+const CLOCK_SLACK_MS = 5 * 60 * 1000;
+
+/** Litres as people write them: at most 3 decimals, no trailing zeros. */
+export const litres = (value: number): string => String(Number(value.toFixed(3)));
+
+/** Rounds away float noise from sums of litres (the columns keep 3 decimals). */
+export const roundLitres = (value: number): number => Number(value.toFixed(3));
+
+/** The batch, or 404 when it is not in this cellar. Takes no lock. */
+export async function findBatch(tx: EntityManager, cellarId: string, batchId: string): Promise<Batch> {
+  const batch = await tx.getRepository(Batch).findOneBy({ id: batchId, cellarId });
+  if (!batch) throw new NotFoundError(NO_SUCH_BATCH);
+  return batch;
+}
+
+/**
+ * Locks the batch row for the rest of the transaction, so two operations on one batch write
+ * their journal lines and caches one after the other. Lock vessels first, then batches
+ * (the order every writer follows), so two operations never wait on each other in a circle.
+ */
+export async function lockBatch(tx: EntityManager, cellarId: string, batchId: string): Promise<Batch> {
+  const batch = await tx.getRepository(Batch).findOne({ where: { id: batchId, cellarId }, lock: { mode: 'pessimistic_write' } });
+  if (!batch) throw new NotFoundError(NO_SUCH_BATCH);
+  return batch;
+}
+
+/** The cellar's settings (time zone, sanitising and headspace limits). */
+export function loadCellar(tx: EntityManager, cellarId: string): Promise<Cellar> {
+  return tx.getRepository(Cellar).findOneByOrFail({ id: cellarId });
+}
+
+/** The vessels holding the batch now, by name. */
+export function vesselsHolding(tx: EntityManager, batchId: string): Promise<Vessel[]> {
+  return tx.getRepository(Vessel).find({ where: { batchId }, order: { name: 'ASC', id: 'ASC' } });
+}
+
+/** 409 for work that needs the liquid when the batch is in no vessel any more. */
+export async function requireInVessels(tx: EntityManager, batch: Batch): Promise<Vessel[]> {
+  const vessels = await vesselsHolding(tx, batch.id);
+  if (vessels.length === 0) {
+    throw new ConflictError(`${batch.name} is not in any vessel any more (it was bottled, blended or moved on), so this cannot be done to it.`);
+  }
+  return vessels;
+}
+
+/**
+ * The calendar date (YYYY-MM-DD) of a moment in the cellar's time zone.
+ * @param timeZone - an IANA zone such as Europe/Berlin
+ */
+export function localDate(at: Date, timeZone: string): string {
+  const parts = new Intl.DateTimeFormat('en-GB', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(at);
+  const part = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
+  return `${part('year')}-${part('month')}-${part('day')}`;
+}
+
+/**
+ * When an operation happened: the given moment, or now. Refuses moments in the future and
+ * (for an existing batch) before the batch was started.
+ * @param at - ISO date-time from the request, if any
+ */
+export function occurredAt(at: string | undefined, now: Date, batch?: Batch, timeZone = 'UTC'): Date {
+  if (!at) return now;
+  const moment = new Date(at);
+  if (moment.getTime() > now.getTime() + CLOCK_SLACK_MS) throw new BadRequestError('body.at: that moment is in the future.');
+  if (batch && localDate(moment, timeZone) < batch.startedOn) {
+    throw new BadRequestError(`body.at: that is before ${batch.name} was started (${batch.startedOn}).`);
+  }
+  return moment;
+}
+
+/** Runs a shared/calc function, turning its input errors into a 400 the user can act on. */
+export function calc<T>(fn: () => T): T {
+  try {
+    return fn();
+  } catch (error) {
+    if (error instanceof CalcInputError) throw new BadRequestError(error.message, { field: error.field });
+    throw error;
+  }
+}

@@ -1,0 +1,32 @@
+import type { DataSource } from 'typeorm';
+import { Batch } from '../entities/batch.entity';
+import { ConflictError } from '../errors';
+import { findBatch, litres, lockBatch, vesselsHolding } from './batch-context';
+import type { CellarContext } from './cellar.service';
+
+/**
+ * Deletes a batch and its journal (a mistake, a test entry). Refused while a vessel holds it,
+ * while it has bottle lots, or while a split or blend descends from it: its history is part
+ * of theirs.
+ */
+export async function deleteBatch(ds: DataSource, ctx: CellarContext, batchId: string): Promise<void> {
+  await ds.transaction(async (tx) => {
+    await findBatch(tx, ctx.cellarId, batchId);
+    const batch = await lockBatch(tx, ctx.cellarId, batchId);
+    const vessels = await vesselsHolding(tx, batch.id);
+    if (vessels.length > 0) {
+      const list = vessels.map((v) => `${v.name} (${litres(v.volumeL ?? 0)} L)`).join(', ');
+      throw new ConflictError(`${batch.name} is still in ${list}. Rack, bottle or empty it before deleting the batch.`);
+    }
+    const [{ lots }]: { lots: number }[] = await tx.query(`SELECT COUNT(*)::int AS lots FROM bottle_lots WHERE batch_id = $1`, [batch.id]);
+    if (lots > 0) throw new ConflictError(`${batch.name} has ${lots} bottle lot${lots === 1 ? '' : 's'}; a batch with bottles cannot be deleted.`);
+    const children: { name: string }[] = await tx.query(
+      `SELECT b.name FROM batch_parents bp JOIN batches b ON b.id = bp.child_id WHERE bp.parent_id = $1 ORDER BY b.name`,
+      [batch.id],
+    );
+    if (children.length > 0) {
+      throw new ConflictError(`${children.map((c) => c.name).join(', ')} came from ${batch.name}; its history is part of theirs, so it cannot be deleted.`);
+    }
+    await tx.getRepository(Batch).delete({ id: batch.id });
+  });
+}
