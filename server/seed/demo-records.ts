@@ -151,9 +151,9 @@ export const DEMO_BATCHES: DemoBatch[] = [
     readings: [
       { day: 0, sg: 1.105 },
       { day: 10, sg: 1.03 },
-      { day: 30, sg: 1.01 },
-      { day: 60, sg: 1.008 },
-      { day: 64, sg: 1.008 },
+      { day: 30, sg: 1.004 },
+      { day: 60, sg: 0.999 },
+      { day: 64, sg: 0.999 },
     ],
   },
   {

@@ -52,6 +52,7 @@ describe('demo cellar', () => {
     expect(now.getTime() - started.getTime()).toBeGreaterThan(183 * 86_400_000);
 
     const oak = await batch('Blackcurrant Melomel');
+    expect(oak.state).toBe('finished');
     const [oakEntry] = await ds.query(`SELECT payload FROM journal_entries WHERE batch_id = $1 AND payload->>'category' = 'oak'`, [oak.row.id]);
     expect(new Date(oakEntry.payload.removeOn).getTime()).toBeGreaterThan(now.getTime());
 
