@@ -27,6 +27,10 @@ export const CAUTION_LEGAL_LIMITS =
 export const CAUTION_GLASS =
   'Glass carboys break. Carry full ones from the bottom, never by the neck; a crack can cut badly.';
 
+/** Sanitiser concentrates (acids, oxidisers), beside marking a vessel sanitised. */
+export const CAUTION_SANITISER =
+  'Sanitiser concentrates are acids or oxidisers. Follow the maker’s dilution, never mix products, and protect your eyes and skin.';
+
 /** Every caution by key, for screens that list them. */
 export const CAUTIONS = {
   estimate: CAUTION_ESTIMATE,
@@ -35,4 +39,5 @@ export const CAUTIONS = {
   bottlePressure: CAUTION_BOTTLE_PRESSURE,
   legalLimits: CAUTION_LEGAL_LIMITS,
   glass: CAUTION_GLASS,
+  sanitiser: CAUTION_SANITISER,
 } as const;

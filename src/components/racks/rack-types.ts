@@ -1,0 +1,23 @@
+import type { Rack, Shelf } from '@shared/schemas/places';
+
+/** What sits in one slot, as GET /racks reports it. */
+export type Occupant = Shelf['occupants'][number];
+
+/** One slot of a shelf, occupied or not. */
+export interface SlotView {
+  rack: Rack;
+  shelf: Shelf;
+  slot: number;
+  occupant: Occupant | null;
+}
+
+/** The slots of a shelf in order, 1..slotCount, with their occupants. */
+export function slotsOf(rack: Rack, shelf: Shelf): SlotView[] {
+  const bySlot = new Map(shelf.occupants.map((o) => [o.slot, o]));
+  return Array.from({ length: shelf.slotCount }, (_, i) => ({ rack, shelf, slot: i + 1, occupant: bySlot.get(i + 1) ?? null }));
+}
+
+/** "Rack A · shelf 2 · slot 4". */
+export function placeText(place: { rackName: string; shelfNumber: number; slot: number } | null): string {
+  return place ? `${place.rackName} · shelf ${place.shelfNumber} · slot ${place.slot}` : 'Not on a shelf';
+}
