@@ -23,6 +23,7 @@ import { lotRoutes } from './routes/lots.routes';
 import { photoRoutes } from './routes/photos.routes';
 import { rackRoutes } from './routes/racks.routes';
 import { scanRoutes } from './routes/scan.routes';
+import { todayRoutes } from './routes/today.routes';
 import { vesselRoutes } from './routes/vessels.routes';
 
 export interface AppOptions {
@@ -36,6 +37,10 @@ export interface AppOptions {
   clientDir?: string;
   /** Failed sign-ins allowed per address and e-mail in 15 minutes. */
   signInAttempts?: number;
+  /** Base URL printed into QR labels (config PUBLIC_URL). */
+  publicUrl?: string;
+  /** Label code look-ups (/s, /api/scan, /api/cards) allowed per address per minute. */
+  scanLookupsPerMinute?: number;
 }
 
 export const SESSION_COOKIE = 'cellarwright.sid';
@@ -97,6 +102,7 @@ export function createApp(options: AppOptions): express.Express {
     api.use(`/cellars/:cellarId/${resource}`, cellarAccess(ds, policy), router);
   inCellar('settings', cellarSettingsRoutes(ds), { write: 'keeper' });
   inCellar('members', memberRoutes(ds), { write: 'keeper' });
+  inCellar('today', todayRoutes(ds), { write: 'hand' });
   inCellar('racks', rackRoutes(ds), { write: 'hand' });
   inCellar('vessels', vesselRoutes(ds), { write: 'hand' });
   // Bottling and photo uploads sit under a batch but have routers of their own.
@@ -107,12 +113,12 @@ export function createApp(options: AppOptions): express.Express {
   inCellar('lots', lotRoutes(ds), { write: 'hand' });
   inCellar('cases', caseRoutes(ds), { write: 'hand' });
   inCellar('photos', photos.serve, { write: 'hand' });
-  inCellar('labels', labelRoutes(ds), { write: 'hand' });
+  inCellar('labels', labelRoutes(ds, { publicUrl: options.publicUrl ?? 'http://127.0.0.1:8460' }), { write: 'hand' });
 
   app.use('/api', api);
+  // Printed label URLs (outside /api because phones open them directly) and code look-ups.
+  app.use(scanRoutes(ds, { lookupsPerMinute: options.scanLookupsPerMinute }));
   app.use('/api', apiNotFound);
-  // Printed label URLs; outside /api because phones open them directly.
-  app.use(scanRoutes(ds));
 
   if (options.clientDir && fs.existsSync(path.join(options.clientDir, 'index.html'))) {
     const indexHtml = path.join(options.clientDir, 'index.html');

@@ -47,6 +47,7 @@ async function main(): Promise<void> {
     cookieSecure: config.cookieSecure,
     trustProxy: config.trustProxy,
     clientDir: path.join(projectRoot, 'dist'),
+    publicUrl: config.publicUrl,
   });
   const server = app.listen(config.port, config.host, () => {
     console.log(`\nCellarwright is running at http://${config.host}:${config.port}/`);

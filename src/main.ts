@@ -28,7 +28,8 @@ app.use(router);
 setUnauthorizedHandler(() => {
   useSessionStore(pinia).forget();
   const here = router.currentRoute.value;
-  if (!here.meta.public) void router.push({ name: 'sign-in', query: { next: here.fullPath } });
+  // Before the first navigation settles the route is the bare start location: the guard decides then.
+  if (here.matched.length > 0 && !here.meta.public) void router.push({ name: 'sign-in', query: { next: here.fullPath } });
 });
 
 app.mount('#app');

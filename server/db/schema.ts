@@ -14,6 +14,7 @@ import { User } from '../entities/user.entity';
 import { Vessel } from '../entities/vessel.entity';
 import { CreateAccounts1796170000000 } from './migrations/1796170000000-CreateAccounts';
 import { CreateCellarRecords1796170100000 } from './migrations/1796170100000-CreateCellarRecords';
+import { AddBottleCards1796170200000 } from './migrations/1796170200000-AddBottleCards';
 
 /** Every entity, listed by hand (glob paths do not work under Vitest). */
 export const entities = [
@@ -34,4 +35,4 @@ export const entities = [
 ];
 
 /** Every migration, oldest first. Add a new one at the end. */
-export const migrations = [CreateAccounts1796170000000, CreateCellarRecords1796170100000];
+export const migrations = [CreateAccounts1796170000000, CreateCellarRecords1796170100000, AddBottleCards1796170200000];

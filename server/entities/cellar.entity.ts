@@ -28,6 +28,10 @@ export class Cellar {
   @Column({ name: 'annual_limit_l', type: 'numeric', precision: 10, scale: 2, nullable: true, transformer: numericTransformer })
   annualLimitL: number | null;
 
+  /** Bottle and case labels open a public card for anyone (off unless a Keeper turns it on). */
+  @Column({ name: 'public_bottle_cards', type: 'boolean', default: false })
+  publicBottleCards: boolean;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;
 

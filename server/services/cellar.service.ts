@@ -22,6 +22,7 @@ function toDto(cellar: Cellar, role: Role): CellarDto {
     sanitisedValidDays: cellar.sanitisedValidDays,
     headspaceWarnPercent: cellar.headspaceWarnPercent,
     annualLimitL: cellar.annualLimitL,
+    publicBottleCards: cellar.publicBottleCards,
     role,
   };
 }

@@ -27,6 +27,8 @@ export const cellarSchema = z.object({
   sanitisedValidDays: z.number().int(),
   headspaceWarnPercent: z.number(),
   annualLimitL: z.number().nullable(),
+  /** Bottle and case labels open a public card for anyone who scans them. */
+  publicBottleCards: z.boolean(),
   role: roleSchema,
 });
 export type Cellar = z.infer<typeof cellarSchema>;
@@ -39,6 +41,7 @@ export const cellarUpdateSchema = z
     sanitisedValidDays: z.number().int('whole days').min(1, 'at least 1 day').max(90, 'at most 90 days'),
     headspaceWarnPercent: z.number().min(0, 'cannot be negative').max(50, 'at most 50 %'),
     annualLimitL: z.number().positive('must be more than 0').max(100000).nullable(),
+    publicBottleCards: z.boolean(),
   })
   .partial();
 export type CellarUpdate = z.infer<typeof cellarUpdateSchema>;

@@ -16,6 +16,9 @@ export type RouteName =
   | 'tasks'
   | 'calculators'
   | 'settings'
+  | 'no-such-label'
+  | 'bottle-card'
+  | 'label-url'
   | 'not-found';
 
 declare module 'vue-router' {
@@ -49,5 +52,19 @@ export const routes: RouteRecordRaw[] = [
       { path: 'settings', name: 'settings', component: () => import('@/pages/SettingsPage.vue'), meta: { title: 'Settings' } },
     ],
   },
+  // Where label URLs (/s/:code, served by the API) lead when they open nothing, or a public bottle card.
+  { path: '/no-such-label', name: 'no-such-label', component: () => import('@/pages/NoSuchLabelPage.vue'), meta: { public: true, title: 'No such label' } },
+  {
+    // A printed label URL reached inside the app (e.g. after signing in with ?next=/s/…): the server decides.
+    path: '/s/:code',
+    name: 'label-url',
+    component: () => import('@/pages/NoSuchLabelPage.vue'),
+    meta: { public: true },
+    beforeEnter: (to) => {
+      window.location.replace(to.fullPath);
+      return false;
+    },
+  },
+  { path: '/card/:code', name: 'bottle-card', component: () => import('@/pages/BottleCardPage.vue'), meta: { public: true, title: 'Bottle card' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/pages/NotFoundPage.vue'), meta: { public: true, title: 'Not found' } },
 ];

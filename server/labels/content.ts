@@ -1,0 +1,103 @@
+import { abvHighGravity, formatVolume, type UnitSystem } from '../../shared/calc';
+import { BATCH_KIND_LABELS } from '../../shared/schemas/batches';
+import type { LabelItem } from './types';
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** "2026-03-14" → "14 Mar 2026" (a calendar date: no time zone involved). */
+export function labelDate(iso: string): string {
+  const [y, m, d] = iso.slice(0, 10).split('-').map(Number);
+  return y && m && d ? `${d} ${MONTHS[m - 1]} ${y}` : iso;
+}
+
+/** The printed ABV: always marked as an estimate; "—" when unknown. */
+export function abvText(abv: number | null): string {
+  return abv === null || !Number.isFinite(abv) ? 'ABV —' : `ABV ≈ ${abv.toFixed(1)} % (est.)`;
+}
+
+/**
+ * Current ABV estimate by the high-gravity formula, from the original gravity and the latest
+ * (temperature-corrected) reading; null when either is missing or the pair is impossible.
+ */
+export function currentAbv(og: number | null, latestSg: number | null): number | null {
+  if (og === null || latestSg === null || latestSg > og) return null;
+  try {
+    return Math.round(abvHighGravity(og, latestSg) * 10) / 10;
+  } catch {
+    return null;
+  }
+}
+
+const kindLabel = (kind: string | null) => (kind ? (BATCH_KIND_LABELS as Record<string, string>)[kind] ?? kind : '');
+const capitalised = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+const bottleSize = (ml: number) => formatVolume(ml / 1000, 'metric');
+
+export interface VesselLabelRow {
+  id: string;
+  code: string;
+  name: string;
+  vesselKind: string;
+  capacityL: number;
+  batchName: string | null;
+  batchKind: string | null;
+  startedOn: string | null;
+  og: number | null;
+  lastSg: number | null;
+  unitSystem: UnitSystem;
+}
+
+/** A vessel's label: its name and code, and the batch it holds (or that it is empty). */
+export function vesselLabel(row: VesselLabelRow): LabelItem {
+  const holding = row.batchName !== null;
+  return {
+    kind: 'vessel',
+    id: row.id,
+    code: row.code,
+    texts: {
+      name: row.name,
+      code: row.code,
+      batch: holding ? row.batchName! : 'Empty',
+      kind: holding ? kindLabel(row.batchKind) : `${capitalised(row.vesselKind)} · ${formatVolume(row.capacityL, row.unitSystem)}`,
+      started: holding && row.startedOn ? `Started ${labelDate(row.startedOn)}` : '',
+      og: holding ? `OG ${row.og === null ? '—' : row.og.toFixed(3)}` : '',
+      abv: holding ? abvText(currentAbv(row.og, row.lastSg)) : '',
+    },
+  };
+}
+
+export interface BottleLabelRow {
+  id: string;
+  code: string;
+  batchName: string;
+  batchKind: string;
+  bottledOn: string;
+  bottleMl: number;
+  carbonation: string;
+  sulfiteAdded: boolean;
+  /** The lot's estimate at bottling, else one from the batch's gravities. */
+  abv: number | null;
+}
+
+function bottleTexts(row: BottleLabelRow, contents: string): LabelItem['texts'] {
+  return {
+    batch: row.batchName,
+    code: row.code,
+    kind: kindLabel(row.batchKind) + (row.carbonation === 'sparkling' ? ' · sparkling' : ''),
+    bottled: `Bottled ${labelDate(row.bottledOn)}`,
+    contents,
+    abv: abvText(row.abv),
+    sulfites: row.sulfiteAdded ? 'Contains sulfites' : '',
+  };
+}
+
+/** A case's label: batch, bottling date, bottles in the case, ABV, sulfite line. */
+export function caseLabel(row: BottleLabelRow & { number: number; bottlesInitial: number }): LabelItem {
+  const contents = `Case ${row.number} · ${row.bottlesInitial} × ${bottleSize(row.bottleMl)}`;
+  return { kind: 'case', id: row.id, code: row.code, texts: bottleTexts(row, contents) };
+}
+
+/** A lot's own label: batch, bottling date, how many bottles the run made. */
+export function lotLabel(row: BottleLabelRow & { bottleCount: number }): LabelItem {
+  const contents = `Lot · ${row.bottleCount} × ${bottleSize(row.bottleMl)}`;
+  return { kind: 'lot', id: row.id, code: row.code, texts: bottleTexts(row, contents) };
+}

@@ -1,0 +1,113 @@
+import { afterEach, beforeAll, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import QRCode from 'qrcode';
+import type { Vessel } from '../../server/entities/vessel.entity';
+import type { Shelf } from '../../server/entities/shelf.entity';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
+import { makeBatch, makeRack, makeVessel, placeIn } from '../helpers/label-factories';
+
+describeInBrowser('scanning labels, in Chromium', (env) => {
+  let crew: CellarCrew;
+  let carboy: Vessel;
+  let inPlace: Vessel;
+  let strayed: Vessel;
+  let shelves: Shelf[];
+
+  beforeAll(async () => {
+    const { ds } = env();
+    crew = await makeCellarWithCrew(ds, 'Scanning test cellar');
+    const batch = await makeBatch(ds, crew.cellar.id, { name: 'Rowan Berry Melomel', kind: 'melomel' });
+    carboy = await makeVessel(ds, crew.cellar.id, { name: 'Carboy North', batch });
+    inPlace = await makeVessel(ds, crew.cellar.id, { name: 'Jug In Place' });
+    strayed = await makeVessel(ds, crew.cellar.id, { name: 'Jug Gone Astray' });
+    ({ shelves } = await makeRack(ds, crew.cellar.id, 'Scan rack', [4, 4]));
+    await placeIn(ds, crew.cellar.id, shelves[0]!.id, 1, { vesselId: inPlace.id });
+    // Recorded on the second shelf, but it really stands on the first.
+    await placeIn(ds, crew.cellar.id, shelves[1]!.id, 3, { vesselId: strayed.id });
+  });
+
+  const vesselPage = (v: Vessel) => new RegExp(`/c/${crew.cellar.id}/vessels/${v.id}$`);
+
+  const pages: Page[] = [];
+  /** A phone-sized page with no session; closed after each test, passed or not. */
+  async function freshPage(): Promise<Page> {
+    const { context } = env();
+    await context.clearCookies();
+    const page = await context.newPage();
+    pages.push(page);
+    await page.setViewportSize({ width: 390, height: 844 });
+    return page;
+  }
+  afterEach(async () => {
+    for (const page of pages.splice(0)) await page.close().catch(() => undefined);
+  });
+
+  it('opens a label URL signed out, asks to sign in, then lands on the vessel', async () => {
+    const { baseUrl } = env();
+    const page = await freshPage();
+    await page.goto(`${baseUrl}/s/${carboy.code}`);
+    await page.waitForURL(/\/sign-in\?next=/);
+    // Once the app has loaded the (absent) session, the sign-in page must still point back to the label.
+    await page.waitForLoadState('networkidle');
+    await page.waitForSelector('[data-test=email]');
+    expect(new URL(page.url()).searchParams.get('next')).toBe(`/s/${carboy.code}`);
+    await page.fill('[data-test=email]', crew.guest.email);
+    await page.fill('[data-test=password]', TEST_PASSWORD);
+    await page.click('[data-test=sign-in]');
+    await page.waitForURL(vesselPage(carboy));
+  });
+
+  it('opens the record from a typed code on the Scan page', async () => {
+    const { baseUrl } = env();
+    const page = await freshPage();
+    await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
+    await page.goto(`${baseUrl}/c/${crew.cellar.id}/scan`);
+    await page.fill('[data-test=scan-code-input]', 'NOT-A-CODE');
+    await page.click('[data-test=scan-code-submit]');
+    // Quasar puts data-test on the <input>; the message sits in its field.
+    const field = page.locator('[data-test=scan-code-input]').locator('xpath=ancestor::label');
+    await expect.poll(() => field.textContent()).toContain('A label code is 8 letters and digits');
+    // Typed in lower case with a space: still the same code.
+    await page.fill('[data-test=scan-code-input]', `${carboy.code.slice(0, 4).toLowerCase()} ${carboy.code.slice(4).toLowerCase()}`);
+    await page.click('[data-test=scan-code-submit]');
+    await page.waitForURL(vesselPage(carboy));
+  });
+
+  it('opens the record from a photo of the label, decoded in the browser', async () => {
+    const { baseUrl } = env();
+    const page = await freshPage();
+    await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
+    await page.goto(`${baseUrl}/c/${crew.cellar.id}/scan`);
+    // A label printed for another address still opens here: only the code matters.
+    const photo = await QRCode.toBuffer(`https://cellar.example.test/s/${carboy.code}`, { margin: 4, scale: 8 });
+    await page.setInputFiles('[data-test=scan-photo-file]', { name: 'label.png', mimeType: 'image/png', buffer: photo });
+    await page.waitForURL(vesselPage(carboy));
+  });
+
+  it('checks a shelf: lists the misplaced jug and records it on this shelf after one confirmation', async () => {
+    const { baseUrl, ds } = env();
+    const page = await freshPage();
+    await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
+    await page.goto(`${baseUrl}/c/${crew.cellar.id}/scan`);
+    await page.click('[data-test=mode-shelf]');
+    await page.click('[data-test=check-rack]');
+    await page.click('.q-menu .q-item:has-text("Scan rack")');
+    await page.click('[data-test=check-shelf]');
+    await page.click('.q-menu .q-item:has-text("Shelf 1")');
+    for (const v of [inPlace, strayed]) {
+      await page.fill('[data-test=check-code-input]', v.code);
+      await page.click('[data-test=check-code-submit]');
+    }
+    await expect.poll(() => page.textContent('[data-test=misplaced]')).toContain('Jug Gone Astray');
+    expect(await page.textContent('[data-test=misplaced]')).toContain('Recorded on Scan rack · shelf 2 · slot 3');
+    expect(await page.textContent('[data-test=present]')).toContain('Jug In Place');
+
+    await page.click('[data-test=move-misplaced]');
+    await page.click('.q-dialog button:has-text("Record the move")');
+    await expect.poll(() => page.textContent('[data-test=present]')).toContain('Jug Gone Astray');
+    expect(await page.isVisible('[data-test=misplaced]')).toBe(false);
+    const [row] = await ds.query(`SELECT shelf_id AS "shelfId", slot FROM placements WHERE vessel_id = $1`, [strayed.id]);
+    expect(row).toEqual({ shelfId: shelves[0]!.id, slot: 2 });
+  });
+});
