@@ -1,0 +1,103 @@
+import { z } from 'zod';
+import {
+  batchPageSchema,
+  type BatchListQuery,
+  type BatchStart,
+  type batchUpdateSchema,
+} from '@shared/schemas/batches';
+import { batchDetailSchema, operationResultSchema, type BatchDetail, type OperationResult } from '@shared/schemas/batch-detail';
+import type {
+  AdditionRequest,
+  amendRequestSchema,
+  blendRequestSchema,
+  degasRequestSchema,
+  noteRequestSchema,
+  RackRequest,
+  ReadingRequest,
+  removalRequestSchema,
+  splitRequestSchema,
+  tasteRequestSchema,
+  topUpRequestSchema,
+} from '@shared/schemas/journal';
+import { rackTargetSuggestionSchema, type Vessel } from '@shared/schemas/vessels';
+import type { RackingStage } from '@shared/calc';
+import { request } from './http';
+import { listVessels } from './vessels';
+
+export type BatchPage = z.infer<typeof batchPageSchema>;
+export type RackTargetSuggestion = z.infer<typeof rackTargetSuggestionSchema>;
+
+const cellarBase = (cellarId: string) => `/api/cellars/${encodeURIComponent(cellarId)}`;
+const batchesBase = (cellarId: string) => `${cellarBase(cellarId)}/batches`;
+const batchBase = (cellarId: string, batchId: string) => `${batchesBase(cellarId)}/${encodeURIComponent(batchId)}`;
+
+/** A query string from the filled-in parameters only. */
+function queryString(params: Record<string, unknown>): string {
+  const search = new URLSearchParams();
+  for (const [key, value] of Object.entries(params)) {
+    if (value !== undefined && value !== null && value !== '') search.set(key, String(value));
+  }
+  const text = search.toString();
+  return text ? `?${text}` : '';
+}
+
+/** One page of batches, filtered and sorted on the server. */
+export const fetchBatches = (cellarId: string, query: BatchListQuery): Promise<BatchPage> =>
+  request('GET', `${batchesBase(cellarId)}${queryString(query)}`, batchPageSchema);
+
+export const fetchBatch = (cellarId: string, batchId: string): Promise<BatchDetail> =>
+  request('GET', batchBase(cellarId, batchId), batchDetailSchema);
+
+export const startBatch = (cellarId: string, body: BatchStart): Promise<OperationResult> =>
+  request('POST', batchesBase(cellarId), operationResultSchema, body);
+
+export const updateBatch = (cellarId: string, batchId: string, changes: z.input<typeof batchUpdateSchema>): Promise<BatchDetail> =>
+  request('PATCH', batchBase(cellarId, batchId), batchDetailSchema, changes);
+
+/** Keeper only; the server refuses (409) while the batch is in vessels or bottled. */
+export const deleteBatch = (cellarId: string, batchId: string): Promise<void> => request('DELETE', batchBase(cellarId, batchId));
+
+/** Every journal-writing operation posts to its own path and answers an OperationResult. */
+const operation =
+  <Body>(path: string) =>
+  (cellarId: string, batchId: string, body: Body): Promise<OperationResult> =>
+    request('POST', `${batchBase(cellarId, batchId)}/${path}`, operationResultSchema, body);
+
+export const logReading = operation<ReadingRequest>('readings');
+export const rackBatch = operation<RackRequest>('rackings');
+export const splitBatch = operation<z.input<typeof splitRequestSchema>>('splits');
+export const addAddition = operation<AdditionRequest>('additions');
+export const removeAddition = operation<z.input<typeof removalRequestSchema>>('removals');
+export const topUpBatch = operation<z.input<typeof topUpRequestSchema>>('top-ups');
+export const degasBatch = operation<z.input<typeof degasRequestSchema>>('degassings');
+export const tasteBatch = operation<z.input<typeof tasteRequestSchema>>('tastings');
+export const addNote = operation<z.input<typeof noteRequestSchema>>('notes');
+
+/** Blends vessels of two or more batches into a new batch; answers with the new batch. */
+export const blendBatches = (cellarId: string, body: z.input<typeof blendRequestSchema>): Promise<OperationResult> =>
+  request('POST', `${batchesBase(cellarId)}/blends`, operationResultSchema, body);
+
+/** Records a correction of an earlier journal entry (the entry itself never changes). */
+export const amendEntry = (cellarId: string, batchId: string, entryId: string, body: z.input<typeof amendRequestSchema>): Promise<OperationResult> =>
+  request('POST', `${batchBase(cellarId, batchId)}/journal/${encodeURIComponent(entryId)}/amendments`, operationResultSchema, body);
+
+// ---- Vessel look-ups the batch operations need (choosing where to fill or rack) -----------
+
+/** Empty, sanitised (not lapsed), not retired vessels, smallest useful first. */
+export async function fetchFillCandidates(cellarId: string): Promise<Vessel[]> {
+  const page = await listVessels(cellarId, { freeAndSanitised: 'true', pageSize: 200 });
+  return [...page.items].sort((a, b) => a.capacityL - b.capacityL || a.name.localeCompare(b.name));
+}
+
+/** The server's proposal for a racking: smallest free sanitised vessel that holds the volume after the expected loss. */
+export const fetchRackTarget = (
+  cellarId: string,
+  volumeL: number,
+  stage: RackingStage,
+  excludeVesselIds: string[] = [],
+): Promise<RackTargetSuggestion> =>
+  request(
+    'GET',
+    `${cellarBase(cellarId)}/vessels/rack-target${queryString({ volumeL, stage, exclude: excludeVesselIds.join(',') || undefined })}`,
+    rackTargetSuggestionSchema,
+  );

@@ -1,0 +1,34 @@
+import { computed, ref } from 'vue';
+import type { BatchDetail } from '@shared/schemas/batch-detail';
+import { fetchBatch } from '@/api/batches';
+import { useSessionStore } from '@/stores/session';
+
+/** The open cellar's id (the router guard sets it before any cellar page shows). */
+export function useCellarId() {
+  const session = useSessionStore();
+  return computed(() => session.currentCellarId ?? '');
+}
+
+/** The batch an operation dialog works on, loaded fresh each time the dialog opens. */
+export function useDialogBatch(batchId: () => string) {
+  const cellarId = useCellarId();
+  const batch = ref<BatchDetail | null>(null);
+  const loading = ref(false);
+  const loadError = ref<string | null>(null);
+
+  async function load(): Promise<BatchDetail | null> {
+    loading.value = true;
+    loadError.value = null;
+    try {
+      batch.value = await fetchBatch(cellarId.value, batchId());
+      return batch.value;
+    } catch (err) {
+      loadError.value = err instanceof Error ? err.message : 'Could not load the batch.';
+      return null;
+    } finally {
+      loading.value = false;
+    }
+  }
+
+  return { cellarId, batch, loading, loadError, load };
+}
