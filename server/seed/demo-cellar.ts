@@ -98,9 +98,10 @@ export async function seedDemoRecords(tx: EntityManager, people: { keeper: Cella
     const volumeL = def.startIn.reduce((sum, [, l]) => sum + l, 0);
     await log(def.key, { kind: 'started', volumeL, og: def.og, vessels: def.startIn.map(([k, l]) => ({ ...ref(k), volumeL: l })), parents: [], override: null }, startedAt, people.keeper);
   };
-  const readings = async (key: string, upToDay = Infinity) => {
+  /** Logs the readings taken after day `afterDay` and up to day `upToDay`. */
+  const readings = async (key: string, afterDay: number, upToDay = Infinity) => {
     const { def } = batchKeys.get(key)!;
-    for (const r of def.readings.filter((x) => x.day <= upToDay)) {
+    for (const r of def.readings.filter((x) => x.day > afterDay && x.day <= upToDay)) {
       const corrected = r.temperatureC === undefined ? r.sg : Number(correctGravity(r.sg, r.temperatureC, 20).toFixed(4));
       await log(key, { kind: 'reading', sg: r.sg, temperatureC: r.temperatureC ?? null, calibrationC: 20, correctedSg: corrected, ph: null, vesselId: null }, daysAgo(def.startedDaysAgo - r.day, 8));
     }
@@ -117,16 +118,16 @@ export async function seedDemoRecords(tx: EntityManager, people: { keeper: Cella
   // The cider: pressed last autumn, bottled and partly drunk.
   const cider = DEMO_BATCHES.find((b) => b.key === 'cider')!;
   await start(cider);
-  await readings('cider', 30);
+  await readings('cider', -1, 30);
   await rack('cider', 40, [['f2', 23]], [['bigGlass', 21.5]]);
-  await readings('cider');
+  await readings('cider', 30);
   await bottleCider(daysAgo(210, 14));
 
   // The metheglin: one racking, stabilised, a gallon split off for vanilla; past six months.
   await start(DEMO_BATCHES.find((b) => b.key === 'linden')!);
-  await readings('linden', 30);
+  await readings('linden', -1, 30);
   await rack('linden', 34, [['f1', 23]], [['bigGlass', 17.5], ['demi1', 4.5]]);
-  await readings('linden');
+  await readings('linden', 30);
   await log('linden', { kind: 'addition', category: 'stabiliser', name: 'Potassium metabisulfite', amount: 1.1, unit: 'g', vesselId: null, removeOn: null }, daysAgo(110));
   await log('linden', { kind: 'addition', category: 'stabiliser', name: 'Potassium sorbate', amount: 4.3, unit: 'g', vesselId: null, removeOn: null }, daysAgo(110));
   await splitVanilla(daysAgo(90, 12));
@@ -134,21 +135,21 @@ export async function seedDemoRecords(tx: EntityManager, people: { keeper: Cella
 
   // The melomel: fruit in primary, racked once, oak in now.
   await start(DEMO_BATCHES.find((b) => b.key === 'blackcurrant')!);
-  await readings('blackcurrant', 30);
+  await readings('blackcurrant', -1, 30);
   await rack('blackcurrant', 30, [['f2', 12]], [['carboyB', 11]]);
-  await readings('blackcurrant');
+  await readings('blackcurrant', 30);
   await log('blackcurrant', { kind: 'addition', category: 'oak', name: 'Medium-toast French oak cubes', amount: 30, unit: 'g', vesselId: vessels.get('carboyB')!.id, removeOn: daysAgo(-7).toISOString().slice(0, 10) }, daysAgo(14));
 
   // The cyser: racked off the fruit, then stuck well above its expected finish.
   await start(DEMO_BATCHES.find((b) => b.key === 'quince')!);
-  await readings('quince', 28);
+  await readings('quince', -1, 28);
   await rack('quince', 28, [['f2', 19]], [['carboyA', 18]]);
-  await readings('quince');
+  await readings('quince', 28);
   await log('quince', { kind: 'note', text: 'Gravity has not moved for weeks. Try a restart with a fresh, acclimatised yeast.' }, daysAgo(4), people.keeper);
 
   // The traditional: ten days into primary.
   await start(DEMO_BATCHES.find((b) => b.key === 'hawthorn')!);
-  await readings('hawthorn');
+  await readings('hawthorn', -1);
   await log('hawthorn', { kind: 'degassed', vesselId: vessels.get('f1')!.id, note: 'Stirred out the CO₂ before the second nutrient dose.' }, daysAgo(2));
 
   // Vessels that were used and then cleaned keep their final cleaning state from the list.

@@ -2,6 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { fermentationState } from '../../shared/calc';
 import { vesselState } from '../../shared/domain/vessel-state';
 import { seedDemoRecords } from '../../server/seed/demo-cellar';
+import { DEMO_BATCHES } from '../../server/seed/demo-records';
 import { makeCellarWithCrew, type CellarCrew } from '../helpers/factories';
 import { testDataSource } from '../helpers/test-app';
 
@@ -63,6 +64,16 @@ describe('demo cellar', () => {
       [cider.row.id],
     );
     expect(left).toBe(42 - 9);
+  });
+
+  it('logs each planned reading exactly once', async () => {
+    for (const def of DEMO_BATCHES) {
+      const [{ n }] = await ds.query(
+        `SELECT count(*)::int AS n FROM journal_entries e JOIN batches b ON b.id = e.batch_id WHERE b.cellar_id = $1 AND b.name = $2 AND e.kind = 'reading'`,
+        [crew.cellar.id, def.name],
+      );
+      expect(n).toBe(def.readings.length);
+    }
   });
 
   it('has about a dozen vessels on two racks, with free sanitised ones and a lapsed one', async () => {
