@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { rackSchema, type Rack } from '../../shared/schemas/places';
 import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
-import { signedInAgent, testApp } from '../helpers/test-app';
+import { agentsFor, signedInAgent, testApp } from '../helpers/test-app';
 import { countQueries, fillVessel, makeBatch, makeCase, makeRack, makeVessel, placeDirectly, sanitisedDaysAgo } from '../helpers/vessel-factories';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
@@ -16,11 +16,7 @@ beforeAll(async () => {
   ({ app, ds } = await testApp());
   crew = await makeCellarWithCrew(ds);
   other = await makeCellarWithCrew(ds);
-  as = {
-    keeper: await signedInAgent(app, crew.keeper.email, TEST_PASSWORD),
-    hand: await signedInAgent(app, crew.hand.email, TEST_PASSWORD),
-    guest: await signedInAgent(app, crew.guest.email, TEST_PASSWORD),
-  };
+  as = await agentsFor(app, crew, TEST_PASSWORD);
 });
 
 const racks = (cellarId = crew.cellar.id) => `/api/cellars/${cellarId}/racks`;

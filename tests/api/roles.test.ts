@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { makeCellarWithCrew, makeUser, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
-import { signedInAgent, testApp } from '../helpers/test-app';
+import { agentsFor, signedInAgent, testApp } from '../helpers/test-app';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
 let crew: CellarCrew;
@@ -13,11 +13,7 @@ beforeAll(async () => {
   ({ app, ds } = await testApp());
   crew = await makeCellarWithCrew(ds);
   other = await makeCellarWithCrew(ds);
-  as = {
-    keeper: await signedInAgent(app, crew.keeper.email, TEST_PASSWORD),
-    hand: await signedInAgent(app, crew.hand.email, TEST_PASSWORD),
-    guest: await signedInAgent(app, crew.guest.email, TEST_PASSWORD),
-  };
+  as = await agentsFor(app, crew, TEST_PASSWORD);
 });
 
 const settings = (cellarId: string) => `/api/cellars/${cellarId}/settings`;

@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { bestVesselForRacking, headspace, rackingLoss } from '../../shared/calc';
 import { labelCodeSchema, rackTargetSuggestionSchema, vesselDetailSchema, vesselPageSchema, vesselSchema, type Vessel } from '../../shared/schemas/vessels';
 import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
-import { signedInAgent, testApp } from '../helpers/test-app';
+import { agentsFor, signedInAgent, testApp } from '../helpers/test-app';
 import {
   addJournalEntry,
   countQueries,
@@ -26,11 +26,7 @@ beforeAll(async () => {
   ({ app, ds } = await testApp());
   crew = await makeCellarWithCrew(ds);
   other = await makeCellarWithCrew(ds);
-  as = {
-    keeper: await signedInAgent(app, crew.keeper.email, TEST_PASSWORD),
-    hand: await signedInAgent(app, crew.hand.email, TEST_PASSWORD),
-    guest: await signedInAgent(app, crew.guest.email, TEST_PASSWORD),
-  };
+  as = await agentsFor(app, crew, TEST_PASSWORD);
 });
 
 const vessels = (cellarId = crew.cellar.id) => `/api/cellars/${cellarId}/vessels`;

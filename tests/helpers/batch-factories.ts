@@ -6,7 +6,7 @@ import { operationResultSchema, type OperationResult } from '../../shared/schema
 import type { BatchStart } from '../../shared/schemas/batches';
 import type { Vessel } from '../../server/entities/vessel.entity';
 import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from './factories';
-import { signedInAgent } from './test-app';
+import { agentsFor, signedInAgent } from './test-app';
 import { makeVessel, type VesselSeed } from './vessel-factories';
 
 export type Agent = Awaited<ReturnType<typeof signedInAgent>>;
@@ -20,12 +20,7 @@ export interface Crew extends CellarCrew {
 
 export async function crewWithAgents(app: Express, ds: DataSource): Promise<Crew> {
   const crew = await makeCellarWithCrew(ds);
-  const [keeper, hand, guest] = await Promise.all([
-    signedInAgent(app, crew.keeper.email, TEST_PASSWORD),
-    signedInAgent(app, crew.hand.email, TEST_PASSWORD),
-    signedInAgent(app, crew.guest.email, TEST_PASSWORD),
-  ]);
-  return { ...crew, as: { keeper, hand, guest }, batches: `/api/cellars/${crew.cellar.id}/batches` };
+  return { ...crew, as: await agentsFor(app, crew, TEST_PASSWORD), batches: `/api/cellars/${crew.cellar.id}/batches` };
 }
 
 /** An empty sanitised vessel (override with seed), named uniquely. */

@@ -39,3 +39,13 @@ export async function signedInAgent(app: Express, email: string, password: strin
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
 }
+
+/** Signed-in agents for the Keeper, Hand and Guest of a crew (see factories.ts). */
+export async function agentsFor(app: Express, crew: { keeper: { email: string }; hand: { email: string }; guest: { email: string } }, password: string) {
+  const [keeper, hand, guest] = await Promise.all([
+    signedInAgent(app, crew.keeper.email, password),
+    signedInAgent(app, crew.hand.email, password),
+    signedInAgent(app, crew.guest.email, password),
+  ]);
+  return { keeper, hand, guest };
+}
