@@ -8,6 +8,10 @@ import type { CellarContext } from './cellar.service';
 import { stateCondition } from './vessel-queries';
 
 const DUE_WITHIN_DAYS = 7;
+/** The Today screen lists this many ferments, newest first; the Batches list has the rest. */
+const FERMENTS_SHOWN = 50;
+/** The state is judged on recent readings: older ones cannot change a steady-for-days verdict. */
+const READINGS_PER_BATCH = 12;
 
 type FermentRow = { id: string; name: string; kind: Today['ferments'][number]['kind']; stage: Today['ferments'][number]['stage']; started_on: string; og: string | null; tolerance: string; last_sg: string | null; last_at: Date | null; vessel_names: string[] };
 type ReadingRow = { id: string; batch_id: string; occurred_at: Date; payload: JournalPayload; amends_entry_id: string | null };
@@ -34,16 +38,23 @@ async function ferments(tx: EntityManager, cellarId: string, now: Date): Promise
             array_agg(v.name ORDER BY v.name) AS vessel_names
        FROM batches b JOIN vessels v ON v.batch_id = b.id
       WHERE b.cellar_id = $1 AND b.stage IN ('primary', 'secondary')
-      GROUP BY b.id ORDER BY b.started_on DESC`,
-    [cellarId],
+      GROUP BY b.id ORDER BY b.started_on DESC, b.id LIMIT $2`,
+    [cellarId, FERMENTS_SHOWN],
   );
   if (rows.length === 0) return [];
   const readings = readingsByBatch(
     await tx.query(
-      `SELECT id, batch_id, occurred_at, payload, amends_entry_id FROM journal_entries
-        WHERE batch_id = ANY($1) AND (kind = 'reading' OR (kind = 'amendment' AND amends_entry_id IS NOT NULL))
-        ORDER BY occurred_at, recorded_at`,
-      [rows.map((r) => r.id)],
+      `WITH recent AS (
+         SELECT id, batch_id, occurred_at, recorded_at, payload, amends_entry_id,
+                row_number() OVER (PARTITION BY batch_id ORDER BY occurred_at DESC, recorded_at DESC) AS n
+           FROM journal_entries WHERE batch_id = ANY($1) AND kind = 'reading')
+       SELECT id, batch_id, occurred_at, payload, amends_entry_id FROM recent WHERE n <= $2
+       UNION ALL
+       SELECT a.id, a.batch_id, a.occurred_at, a.payload, a.amends_entry_id
+         FROM journal_entries a JOIN recent r ON r.id = a.amends_entry_id AND r.n <= $2
+        WHERE a.kind = 'amendment'
+       ORDER BY occurred_at`,
+      [rows.map((r) => r.id), READINGS_PER_BATCH],
     ),
   );
   return rows.map((r) => ({
