@@ -32,3 +32,14 @@ export function useDialogBatch(batchId: () => string) {
 
   return { cellarId, batch, loading, loadError, load };
 }
+
+/**
+ * Choices of "which vessel" for an operation on a batch: the whole batch first, then each
+ * vessel holding it with its volume in the user's units.
+ */
+export function batchVesselOptions(batch: BatchDetail | null, volume: (litres: number) => string, wholeLabel: string) {
+  return [
+    { value: null as string | null, label: wholeLabel },
+    ...(batch?.vessels ?? []).map((v) => ({ value: v.id as string | null, label: `${v.name} · ${volume(v.volumeL)}` })),
+  ];
+}
