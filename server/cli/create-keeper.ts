@@ -9,7 +9,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import readline from 'node:readline/promises';
 import { z } from 'zod';
-import { hashPassword } from '../auth/passwords';
+import { hashPassword } from '../accounts/passwords';
 import { loadConfig } from '../config';
 import { createDataSource } from '../db/data-source';
 import { ensureDatabase } from '../db/ensure-database';

@@ -1,6 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Role } from '../../shared/roles';
-import { hashPassword } from '../auth/passwords';
+import { hashPassword } from '../accounts/passwords';
+import { memberActor } from '../core/actor';
 import { Cellar } from '../entities/cellar.entity';
 import { Membership } from '../entities/membership.entity';
 import { User } from '../entities/user.entity';
@@ -40,18 +41,32 @@ export async function seedDemoIfEmpty(ds: DataSource): Promise<boolean> {
 
     const cellars = tx.getRepository(Cellar);
     const home = await cellars.save(
-      cellars.create({ name: 'Fernhollow cellar', unitSystem: 'metric', timeZone: 'Europe/Berlin', sanitisedValidDays: 7, headspaceWarnPercent: 5, annualLimitL: null }),
+      cellars.create({
+        name: 'Fernhollow cellar',
+        unitSystem: 'metric',
+        timeZone: 'Europe/Berlin',
+        sanitisedValidDays: 7,
+        headspaceWarnPercent: 5,
+        annualLimitL: null,
+      }),
     );
     await addMember(tx, home, maren, 'keeper');
     await addMember(tx, home, tobias, 'hand');
     await addMember(tx, home, ilse, 'guest');
     await seedDemoRecords(tx, {
-      keeper: { cellarId: home.id, role: 'keeper', userId: maren.id },
-      hand: { cellarId: home.id, role: 'hand', userId: tobias.id },
+      keeper: memberActor(home.id, maren.id, 'keeper'),
+      hand: memberActor(home.id, tobias.id, 'hand'),
     });
 
     const club = await cellars.save(
-      cellars.create({ name: 'Brackenford Mead Circle', unitSystem: 'us', timeZone: 'America/Chicago', sanitisedValidDays: 5, headspaceWarnPercent: 4, annualLimitL: 757.08 }),
+      cellars.create({
+        name: 'Brackenford Mead Circle',
+        unitSystem: 'us',
+        timeZone: 'America/Chicago',
+        sanitisedValidDays: 5,
+        headspaceWarnPercent: 4,
+        annualLimitL: 757.08,
+      }),
     );
     await addMember(tx, club, oskar, 'keeper');
     await addMember(tx, club, maren, 'hand');

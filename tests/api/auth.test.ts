@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { makeCellarWithCrew, makeUser, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, makeUser, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { signedInAgent, testApp } from '../helpers/test-app';
 
 let app: Awaited<ReturnType<typeof testApp>>['app'];

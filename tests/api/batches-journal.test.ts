@@ -1,9 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { CAUTION_BOTTLE_PRESSURE, CAUTION_SULFITES, correctGravity, headspace } from '../../shared/calc';
 import { batchDetailSchema, operationResultSchema } from '../../shared/schemas/batch-detail';
-import { batchInVessels, crewWithAgents, sanitisedVessel, vesselRow, type Crew } from '../helpers/batch-factories';
+import { batchInVessels, makeBatch } from '../helpers/batches';
+import { crewWithAgents, type Crew } from '../helpers/crew';
+import { sanitisedVessel, vesselRow } from '../helpers/vessels';
 import { testApp } from '../helpers/test-app';
-import { makeBatch } from '../helpers/vessel-factories';
 
 let app: Awaited<ReturnType<typeof testApp>>['app'];
 let ds: Awaited<ReturnType<typeof testApp>>['ds'];
@@ -53,12 +54,13 @@ describe('additions and removals', () => {
     expect((await detailOf(theirs.batch.id)).additionsIn).toHaveLength(1);
   });
 
-  it('adds the sulfite caution to a metabisulfite addition and moves the batch to bulk ageing', async () => {
+  it('adds the sulfite caution to a metabisulfite addition; sulfite in primary leaves the batch in primary', async () => {
     const { result } = await batchInVessels(ds, crew, [20]);
     const res = await crew.as.hand.post(url(result.batch.id, 'additions')).send({ category: 'stabiliser', name: 'Potassium metabisulfite', amount: 1.1, unit: 'g' });
     expect(res.status).toBe(201);
     expect(res.body.warnings).toEqual([CAUTION_SULFITES]);
-    expect(res.body.batch.stage).toBe('bulk-ageing');
+    // Sulfiting a must before pitching is common practice; it is not the stabilising of a finished batch.
+    expect(res.body.batch.stage).toBe('primary');
     const spice = await crew.as.hand.post(url(result.batch.id, 'additions')).send({ category: 'spice', name: 'Cinnamon stick', amount: 1, unit: 'pc' });
     expect(spice.body.warnings).toEqual([]);
   });

@@ -2,9 +2,11 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { CAUTION_GLASS, headspace } from '../../shared/calc';
 import { RACKINGS_FOR_BULK_AGEING } from '../../shared/domain/stage';
 import { operationResultSchema } from '../../shared/schemas/batch-detail';
-import { batchInVessels, crewWithAgents, momentDaysAgo, sanitisedVessel, vesselRow, type Crew } from '../helpers/batch-factories';
+import { batchInVessels, makeBatch } from '../helpers/batches';
+import { crewWithAgents, type Crew } from '../helpers/crew';
+import { momentDaysAgo } from '../helpers/dates';
+import { fillVessel, makeVessel, sanitisedDaysAgo, sanitisedVessel, vesselRow } from '../helpers/vessels';
 import { testApp } from '../helpers/test-app';
-import { fillVessel, makeBatch, makeVessel, sanitisedDaysAgo } from '../helpers/vessel-factories';
 
 let app: Awaited<ReturnType<typeof testApp>>['app'];
 let ds: Awaited<ReturnType<typeof testApp>>['ds'];

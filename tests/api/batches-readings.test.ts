@@ -1,9 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { CALIBRATION_20C, correctGravity } from '../../shared/calc';
 import { batchDetailSchema, operationResultSchema } from '../../shared/schemas/batch-detail';
-import { batchInVessels, crewWithAgents, momentDaysAgo, type Crew } from '../helpers/batch-factories';
+import { batchInVessels, makeBatch } from '../helpers/batches';
+import { crewWithAgents, type Crew } from '../helpers/crew';
+import { momentDaysAgo } from '../helpers/dates';
 import { testApp } from '../helpers/test-app';
-import { makeBatch } from '../helpers/vessel-factories';
 
 let app: Awaited<ReturnType<typeof testApp>>['app'];
 let ds: Awaited<ReturnType<typeof testApp>>['ds'];

@@ -1,9 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { CAUTION_GLASS, gravityPoints, headspace } from '../../shared/calc';
 import { batchDetailSchema, operationResultSchema } from '../../shared/schemas/batch-detail';
-import { batchInVessels, crewWithAgents, sanitisedVessel, vesselRow, type Crew } from '../helpers/batch-factories';
+import { batchInVessels } from '../helpers/batches';
+import { crewWithAgents, type Crew } from '../helpers/crew';
+import { makeVessel, sanitisedVessel, vesselRow } from '../helpers/vessels';
 import { testApp } from '../helpers/test-app';
-import { makeVessel } from '../helpers/vessel-factories';
 
 let app: Awaited<ReturnType<typeof testApp>>['app'];
 let ds: Awaited<ReturnType<typeof testApp>>['ds'];

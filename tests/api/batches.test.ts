@@ -2,9 +2,13 @@ import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { CAUTION_GLASS } from '../../shared/calc';
 import { batchDetailSchema, operationResultSchema } from '../../shared/schemas/batch-detail';
 import { batchPageSchema } from '../../shared/schemas/batches';
-import { batchInVessels, crewWithAgents, daysAgo, sanitisedVessel, startRequest, startThroughApi, vesselRow, type Crew } from '../helpers/batch-factories';
+import { batchInVessels, makeBatch, startRequest, startThroughApi } from '../helpers/batches';
+import { makeCase } from '../helpers/bottles';
+import { crewWithAgents, type Crew } from '../helpers/crew';
+import { daysAgo } from '../helpers/dates';
+import { makeRack, placeDirectly } from '../helpers/places';
+import { makeVessel, sanitisedDaysAgo, sanitisedVessel, vesselRow } from '../helpers/vessels';
 import { testApp } from '../helpers/test-app';
-import { makeBatch, makeCase, makeRack, makeVessel, placeDirectly, sanitisedDaysAgo } from '../helpers/vessel-factories';
 
 let app: Awaited<ReturnType<typeof testApp>>['app'];
 let ds: Awaited<ReturnType<typeof testApp>>['ds'];

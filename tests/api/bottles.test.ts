@@ -3,8 +3,9 @@ import { casesFrom } from '../../shared/calc';
 import { bottleCaseSchema, bottleLotSchema, departureSchema } from '../../shared/schemas/bottles';
 import { Batch } from '../../server/entities/batch.entity';
 import { BottleDeparture } from '../../server/entities/bottle-departure.entity';
-import { makeLotViaApi, makeShelf } from '../helpers/bottle-factories';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeLotViaApi } from '../helpers/bottles';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { makeShelf } from '../helpers/places';
 import { signedInAgent, testApp } from '../helpers/test-app';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;

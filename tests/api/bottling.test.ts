@@ -10,10 +10,13 @@ import {
 import { labelCodeSchema } from '../../shared/schemas/vessels';
 import { Batch } from '../../server/entities/batch.entity';
 import { BottleLotRow } from '../../server/entities/bottle-lot.entity';
-import { JournalEntryRow } from '../../server/entities/journal-entry.entity';
+import { JournalEntryRow } from '../../server/journal/journal-entry.entity';
 import { Vessel } from '../../server/entities/vessel.entity';
-import { addReadings, amendEntry, bottleRequest, isoDaysAgo, makeBatchInVessels } from '../helpers/bottle-factories';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeBatchInVessels } from '../helpers/batches';
+import { bottleRequest } from '../helpers/bottles';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { daysAgo } from '../helpers/dates';
+import { addReadings, amendEntry } from '../helpers/journal';
 import { signedInAgent, testApp } from '../helpers/test-app';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
@@ -181,12 +184,12 @@ describe('bottling requests that cannot be right', () => {
     const { batch, vessels } = await makeBatchInVessels(ds, crew, { startedDaysAgo: 60 });
     const early = await as.hand
       .post(bottlings(crew.cellar.id, batch.id))
-      .send(bottleRequest(vessels, { bottledOn: isoDaysAgo(61), confirmNotFinished: true }));
+      .send(bottleRequest(vessels, { bottledOn: daysAgo(61), confirmNotFinished: true }));
     expect(early.status).toBe(400);
     expect(early.body.message).toContain(`before ${batch.name} was started`);
     const future = await as.hand
       .post(bottlings(crew.cellar.id, batch.id))
-      .send(bottleRequest(vessels, { bottledOn: isoDaysAgo(-5), confirmNotFinished: true }));
+      .send(bottleRequest(vessels, { bottledOn: daysAgo(-5), confirmNotFinished: true }));
     expect(future.status).toBe(400);
     expect(future.body.message).toMatch(/in the future/);
   });

@@ -1,9 +1,10 @@
+import { memberActor } from '../../server/core/actor';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { fermentationState } from '../../shared/calc';
 import { vesselState } from '../../shared/domain/vessel-state';
 import { seedDemoRecords } from '../../server/seed/demo-cellar';
 import { DEMO_BATCHES } from '../../server/seed/demo-records';
-import { makeCellarWithCrew, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, type CellarCrew } from '../helpers/crew';
 import { testDataSource } from '../helpers/test-app';
 
 /** The demo must show what the brief promises: one of each stage and state. */
@@ -19,8 +20,8 @@ describe('demo cellar', () => {
       seedDemoRecords(
         tx,
         {
-          keeper: { cellarId: crew.cellar.id, role: 'keeper', userId: crew.keeper.id },
-          hand: { cellarId: crew.cellar.id, role: 'hand', userId: crew.hand.id },
+          keeper: memberActor(crew.cellar.id, crew.keeper.id, 'keeper'),
+          hand: memberActor(crew.cellar.id, crew.hand.id, 'hand'),
         },
         now,
       ),

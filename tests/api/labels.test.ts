@@ -14,8 +14,11 @@ import { fitText } from '../../server/labels/text-fit';
 import { LABELS_DIR, labelTemplates, LabelTemplateError, loadTemplates } from '../../server/labels/templates';
 import type { LabelTemplate } from '../../server/labels/template-schema';
 import type { TextReport } from '../../server/labels/types';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
-import { makeBatch, makeLotWithCases, makeRack, makeVessel, placeIn } from '../helpers/label-factories';
+import { makeBatch } from '../helpers/batches';
+import { makeLotWithCases } from '../helpers/bottles';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { makeRack, placeDirectly } from '../helpers/places';
+import { makeVessel } from '../helpers/vessels';
 import { signedInAgent, testApp } from '../helpers/test-app';
 
 const run = promisify(execFile);
@@ -41,7 +44,7 @@ beforeAll(async () => {
   guest = await signedInAgent(app, crew.guest.email, TEST_PASSWORD);
   const cellarId = crew.cellar.id;
   const melomel = await makeBatch(ds, cellarId, { name: 'Bramble Melomel', kind: 'melomel', og: 1.112, lastReadingSg: 1.01 });
-  const long = await makeBatch(ds, cellarId, { name: 'Smoked pear, wildflower honey and long pepper metheglin for the midwinter feast', kind: 'metheglin' });
+  const long = await makeBatch(ds, cellarId, { name: 'Smoked pear, wildflower honey and long pepper metheglin for the midwinter feast', kind: 'metheglin', og: 1.11 });
   codes.v1 = await makeVessel(ds, cellarId, { name: 'Carboy 1', batch: melomel });
   codes.v2 = await makeVessel(ds, cellarId, { name: 'The long-named green demijohn behind the cellar stairs', batch: long, capacityL: 5 });
   codes.v3 = await makeVessel(ds, cellarId, { name: 'Jug 3' });
@@ -187,7 +190,7 @@ describe('sheets', () => {
   const a4 = () => labelTemplates().get('a4-3x8-70x37')!;
 
   it('puts 25 vessels on two A4 sheets of 24', async () => {
-    const batch = await makeBatch(ds, crew.cellar.id, { name: 'Elderflower cider' });
+    const batch = await makeBatch(ds, crew.cellar.id, { name: 'Elderflower cider', kind: 'traditional-mead', og: 1.11 });
     const many = [];
     for (let i = 0; i < 25; i++) many.push(await makeVessel(ds, crew.cellar.id, { name: `Jug ${i + 10}`, batch, capacityL: 4.5 }));
     const file = await fetchPdf({ template: 'a4-3x8-70x37', vessels: many.map((v) => v.id).join(',') });
@@ -241,8 +244,8 @@ describe('selections and refusals', () => {
 
   it('prints a shelf, a lot\'s cases, a batch\'s vessels and lots', async () => {
     const { shelves } = await makeRack(ds, crew.cellar.id, 'Print rack', [6]);
-    await placeIn(ds, crew.cellar.id, shelves[0]!.id, 2, { vesselId: codes.v3.id });
-    await placeIn(ds, crew.cellar.id, shelves[0]!.id, 4, { caseId: codes.c2.id });
+    await placeDirectly(ds, crew.cellar.id, shelves[0]!.id, 2, { vesselId: codes.v3.id });
+    await placeDirectly(ds, crew.cellar.id, shelves[0]!.id, 4, { caseId: codes.c2.id });
     expect(await count({ shelf: shelves[0]!.id })).toBe(2);
     expect(await count({ lotCases: codes.lot.id })).toBe(2);
     expect(await count({ lots: codes.lot.id })).toBe(1);

@@ -1,9 +1,9 @@
 import sharp from 'sharp';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { JournalEntryRow } from '../../server/entities/journal-entry.entity';
+import { JournalEntryRow } from '../../server/journal/journal-entry.entity';
 import { Photo } from '../../server/entities/photo.entity';
-import { makeBatchInVessels } from '../helpers/bottle-factories';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeBatchInVessels } from '../helpers/batches';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { signedInAgent, testApp } from '../helpers/test-app';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;

@@ -1,9 +1,13 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { rackSchema, type Rack } from '../../shared/schemas/places';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeBatch } from '../helpers/batches';
+import { makeCase } from '../helpers/bottles';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { makeRack, placeDirectly } from '../helpers/places';
+import { countQueries } from '../helpers/query-count';
+import { fillVessel, makeVessel, sanitisedDaysAgo } from '../helpers/vessels';
 import { agentsFor, signedInAgent, testApp } from '../helpers/test-app';
-import { countQueries, fillVessel, makeBatch, makeCase, makeRack, makeVessel, placeDirectly, sanitisedDaysAgo } from '../helpers/vessel-factories';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
 let app: Awaited<ReturnType<typeof testApp>>['app'];

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { makeCellarWithCrew, makeUser, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, makeUser, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { agentsFor, signedInAgent, testApp } from '../helpers/test-app';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;

@@ -4,8 +4,11 @@ import type { Vessel } from '../../server/entities/vessel.entity';
 import type { BottleCaseRow } from '../../server/entities/bottle-case.entity';
 import type { BottleLotRow } from '../../server/entities/bottle-lot.entity';
 import { codeFromScan } from '../../shared/schemas/scan';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
-import { makeBatch, makeLotWithCases, makeRack, makeVessel, placeIn, setPublicCards } from '../helpers/label-factories';
+import { makeBatch } from '../helpers/batches';
+import { makeLotWithCases } from '../helpers/bottles';
+import { makeCellarWithCrew, setPublicCards, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { makeRack, placeDirectly } from '../helpers/places';
+import { makeVessel } from '../helpers/vessels';
 import { signedInAgent, testApp } from '../helpers/test-app';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
@@ -27,7 +30,7 @@ beforeAll(async () => {
   other = await makeCellarWithCrew(ds);
   member = await signedInAgent(app, crew.guest.email, TEST_PASSWORD);
   outsider = await signedInAgent(app, other.keeper.email, TEST_PASSWORD);
-  const batch = await makeBatch(ds, crew.cellar.id, { name: 'Quince Cyser', kind: 'cyser' });
+  const batch = await makeBatch(ds, crew.cellar.id, { name: 'Quince Cyser', kind: 'cyser', og: 1.11 });
   vessel = await makeVessel(ds, crew.cellar.id, { name: 'Demijohn 4', batch });
   ({ lot, cases: [box] } = await makeLotWithCases(ds, crew.cellar.id, batch, { cases: 1, sulfiteAdded: true, abvEstimate: 11.2, note: 'Best after a year.' }) as {
     lot: BottleLotRow;
@@ -169,9 +172,9 @@ describe('shelf check', () => {
     const here = await makeVessel(ds, cellarId, { name: 'Here jug' });
     const gone = await makeVessel(ds, cellarId, { name: 'Gone jug' });
     const strayed = await makeVessel(ds, cellarId, { name: 'Strayed jug' });
-    await placeIn(ds, cellarId, top.id, 1, { vesselId: here.id });
-    await placeIn(ds, cellarId, top.id, 3, { vesselId: gone.id });
-    await placeIn(ds, cellarId, bottom.id, 2, { vesselId: strayed.id });
+    await placeDirectly(ds, cellarId, top.id, 1, { vesselId: here.id });
+    await placeDirectly(ds, cellarId, top.id, 3, { vesselId: gone.id });
+    await placeDirectly(ds, cellarId, bottom.id, 2, { vesselId: strayed.id });
     const foreign = await makeVessel(ds, other.cellar.id, { name: 'Foreign jug' });
 
     const contents = await member.get(`/api/cellars/${cellarId}/labels/shelf/${top.id}/contents`);

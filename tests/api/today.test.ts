@@ -1,7 +1,8 @@
+import { memberActor } from '../../server/core/actor';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemoRecords } from '../../server/seed/demo-cellar';
 import { todaySchema } from '../../shared/schemas/today';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { signedInAgent, testApp } from '../helpers/test-app';
 
 describe('GET /today', () => {
@@ -13,8 +14,8 @@ describe('GET /today', () => {
     crew = await makeCellarWithCrew(ds, 'Today under test');
     await ds.transaction((tx) =>
       seedDemoRecords(tx, {
-        keeper: { cellarId: crew.cellar.id, role: 'keeper', userId: crew.keeper.id },
-        hand: { cellarId: crew.cellar.id, role: 'hand', userId: crew.hand.id },
+        keeper: memberActor(crew.cellar.id, crew.keeper.id, 'keeper'),
+        hand: memberActor(crew.cellar.id, crew.hand.id, 'hand'),
       }),
     );
     agent = await signedInAgent(app, crew.guest.email, TEST_PASSWORD);

@@ -1,8 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { vesselSchema, type Vessel } from '../../shared/schemas/vessels';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeBatch } from '../helpers/batches';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { makeRack, placeDirectly } from '../helpers/places';
+import { fillVessel, makeVessel, sanitisedDaysAgo } from '../helpers/vessels';
 import { agentsFor, signedInAgent, testApp } from '../helpers/test-app';
-import { fillVessel, makeBatch, makeRack, makeVessel, placeDirectly, sanitisedDaysAgo } from '../helpers/vessel-factories';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
 let app: Awaited<ReturnType<typeof testApp>>['app'];

@@ -1,9 +1,13 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { bestVesselForRacking, headspace, rackingLoss } from '../../shared/calc';
 import { labelCodeSchema, rackTargetSuggestionSchema, vesselDetailSchema, vesselPageSchema, vesselSchema, type Vessel } from '../../shared/schemas/vessels';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeBatch } from '../helpers/batches';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { addJournalEntry, reading } from '../helpers/journal';
+import { makeRack, placeDirectly } from '../helpers/places';
+import { countQueries } from '../helpers/query-count';
+import { fillVessel, makeVessel, sanitisedDaysAgo } from '../helpers/vessels';
 import { agentsFor, signedInAgent, testApp } from '../helpers/test-app';
-import { addJournalEntry, countQueries, fillVessel, makeBatch, makeRack, makeVessel, placeDirectly, reading, sanitisedDaysAgo } from '../helpers/vessel-factories';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
 let app: Awaited<ReturnType<typeof testApp>>['app'];

@@ -7,7 +7,7 @@ import { performance } from 'node:perf_hooks';
 import { vesselLabel } from '../../server/labels/content';
 import { renderLabelsPdf } from '../../server/labels/render';
 import { labelTemplates } from '../../server/labels/templates';
-import { randomLabelCode } from '../../server/services/label-codes';
+import { randomLabelCode } from '../../server/labels/label-codes';
 
 const TEMPLATE = 'a4-3x8-70x37';
 const LABELS = 240;

@@ -13,7 +13,7 @@ import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import request from 'supertest';
 import { createApp } from '../../server/app';
-import { hashPassword } from '../../server/auth/passwords';
+import { hashPassword } from '../../server/accounts/passwords';
 import { createDataSource } from '../../server/db/data-source';
 import { recreateDatabase } from '../../server/db/ensure-database';
 import { startLocalPostgres } from '../../server/db/local-postgres';

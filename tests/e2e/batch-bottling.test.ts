@@ -2,7 +2,7 @@ import { beforeAll, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { casesFrom } from '../../shared/calc';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
 
 /** What a Quasar field shows (its data-test sits on the inner control). */

@@ -3,7 +3,7 @@ import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { bestVesselForRacking } from '../../shared/calc';
 import { vesselPageSchema } from '../../shared/schemas/vessels';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
 
 /** What a Quasar field shows (its data-test sits on the inner control). */

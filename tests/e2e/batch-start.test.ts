@@ -1,7 +1,7 @@
 import { beforeAll, expect, it } from 'vitest';
 import request from 'supertest';
 import { Vessel } from '../../server/entities/vessel.entity';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
 
 describeInBrowser('Batches page: pitching a new batch, in Chromium', (env) => {

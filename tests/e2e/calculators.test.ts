@@ -15,7 +15,7 @@ import {
   litresTo,
   tidyNumber,
 } from '../../shared/calc';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
 
 /** The message the shared library gives for input it rejects. */

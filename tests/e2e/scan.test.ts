@@ -3,9 +3,11 @@ import type { Page } from 'playwright-core';
 import QRCode from 'qrcode';
 import type { Vessel } from '../../server/entities/vessel.entity';
 import type { Shelf } from '../../server/entities/shelf.entity';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeBatch } from '../helpers/batches';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { makeRack, placeDirectly } from '../helpers/places';
+import { makeVessel } from '../helpers/vessels';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
-import { makeBatch, makeRack, makeVessel, placeIn } from '../helpers/label-factories';
 
 describeInBrowser('scanning labels, in Chromium', (env) => {
   let crew: CellarCrew;
@@ -17,14 +19,14 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
   beforeAll(async () => {
     const { ds } = env();
     crew = await makeCellarWithCrew(ds, 'Scanning test cellar');
-    const batch = await makeBatch(ds, crew.cellar.id, { name: 'Rowan Berry Melomel', kind: 'melomel' });
+    const batch = await makeBatch(ds, crew.cellar.id, { name: 'Rowan Berry Melomel', kind: 'melomel', og: 1.11 });
     carboy = await makeVessel(ds, crew.cellar.id, { name: 'Carboy North', batch });
     inPlace = await makeVessel(ds, crew.cellar.id, { name: 'Jug In Place' });
     strayed = await makeVessel(ds, crew.cellar.id, { name: 'Jug Gone Astray' });
     ({ shelves } = await makeRack(ds, crew.cellar.id, 'Scan rack', [4, 4]));
-    await placeIn(ds, crew.cellar.id, shelves[0]!.id, 1, { vesselId: inPlace.id });
+    await placeDirectly(ds, crew.cellar.id, shelves[0]!.id, 1, { vesselId: inPlace.id });
     // Recorded on the second shelf, but it really stands on the first.
-    await placeIn(ds, crew.cellar.id, shelves[1]!.id, 3, { vesselId: strayed.id });
+    await placeDirectly(ds, crew.cellar.id, shelves[1]!.id, 3, { vesselId: strayed.id });
   });
 
   const vesselPage = (v: Vessel) => new RegExp(`/c/${crew.cellar.id}/vessels/${v.id}$`);

@@ -1,5 +1,5 @@
 import { beforeAll, expect, it } from 'vitest';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
 
 describeInBrowser('signing in, in Chromium', (env) => {

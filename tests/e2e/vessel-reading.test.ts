@@ -1,9 +1,11 @@
 import { beforeAll, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { correctGravity } from '../../shared/calc';
-import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/factories';
+import { makeBatch } from '../helpers/batches';
+import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
+import { addJournalEntry } from '../helpers/journal';
+import { fillVessel, makeVessel } from '../helpers/vessels';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
-import { addJournalEntry, fillVessel, makeBatch, makeVessel } from '../helpers/vessel-factories';
 
 describeInBrowser('Vessel page: logging a reading, in Chromium', (env) => {
   let crew: CellarCrew;

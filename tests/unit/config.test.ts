@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { loadConfig } from '../../server/config';
-import { neededRole } from '../../server/middleware/cellar-access';
+import { neededRole } from '../../server/http/cellar-access';
 
 describe('loadConfig', () => {
   it('uses loopback defaults', () => {

@@ -1,0 +1,38 @@
+import type { EntityManager } from 'typeorm';
+import { Batch } from '../entities/batch.entity';
+import { Vessel } from '../entities/vessel.entity';
+import { ConflictError, NotFoundError } from '../http/errors';
+
+const NO_SUCH_BATCH = 'No such batch in this cellar.';
+
+/** The batch, or 404 when it is not in this cellar. Takes no lock. */
+export async function findBatch(tx: EntityManager, cellarId: string, batchId: string): Promise<Batch> {
+  const batch = await tx.getRepository(Batch).findOneBy({ id: batchId, cellarId });
+  if (!batch) throw new NotFoundError(NO_SUCH_BATCH);
+  return batch;
+}
+
+/**
+ * Locks the batch row for the rest of the transaction, so two operations on one batch write
+ * their journal lines and caches one after the other. Lock vessels first, then batches
+ * (the order every writer follows), so two operations never wait on each other in a circle.
+ */
+export async function lockBatch(tx: EntityManager, cellarId: string, batchId: string): Promise<Batch> {
+  const batch = await tx.getRepository(Batch).findOne({ where: { id: batchId, cellarId }, lock: { mode: 'pessimistic_write' } });
+  if (!batch) throw new NotFoundError(NO_SUCH_BATCH);
+  return batch;
+}
+
+/** The vessels holding the batch now, by name. */
+export function vesselsHolding(tx: EntityManager, batchId: string): Promise<Vessel[]> {
+  return tx.getRepository(Vessel).find({ where: { batchId }, order: { name: 'ASC', id: 'ASC' } });
+}
+
+/** 409 for work that needs the liquid when the batch is in no vessel any more. */
+export async function requireInVessels(tx: EntityManager, batch: Batch): Promise<Vessel[]> {
+  const vessels = await vesselsHolding(tx, batch.id);
+  if (vessels.length === 0) {
+    throw new ConflictError(`${batch.name} is not in any vessel any more (it was bottled, blended or moved on), so this cannot be done to it.`);
+  }
+  return vessels;
+}

@@ -1,0 +1,44 @@
+import type { EntityManager } from 'typeorm';
+import type { z } from 'zod';
+import type { OperationResult } from '../../shared/schemas/batch-detail';
+import type { topUpRequestSchema } from '../../shared/schemas/journal';
+import { requireRole, type Actor } from '../core/actor';
+import { litres, roundLitres } from '../core/litres';
+import { Vessel } from '../entities/vessel.entity';
+import { ConflictError } from '../http/errors';
+import { appendEntry } from '../journal/journal';
+import { headspaceWarnings } from './fill-rules';
+import { onBatch } from './on-batch';
+
+type TopUpRequest = z.output<typeof topUpRequestSchema>;
+
+/**
+ * Tops up a vessel holding the batch (to cut headspace); the vessel's volume grows and must
+ * still fit. Warns when the headspace is still above the cellar's limit.
+ */
+export function topUp(actor: Actor, tx: EntityManager, batchId: string, request: TopUpRequest): Promise<OperationResult> {
+  requireRole(actor, 'hand');
+  const ref = { vesselId: request.vesselId, expectedVersion: request.expectedVersion };
+  return onBatch(actor, tx, batchId, { vessels: [ref], needsVessels: true }, async ({ tx, batch, cellar, vessels, at }) => {
+    const vessel = vessels.get(request.vesselId)!;
+    const before = vessel.volumeL ?? 0;
+    const after = roundLitres(before + request.volumeL);
+    if (after > vessel.capacityL) {
+      throw new ConflictError(
+        `${vessel.name} holds ${litres(before)} L of ${litres(vessel.capacityL)} L; ${litres(request.volumeL)} L more will not fit ` +
+          `(room for ${litres(vessel.capacityL - before)} L).`,
+        { vesselId: vessel.id, currentVersion: vessel.version },
+      );
+    }
+    vessel.volumeL = after;
+    await tx.getRepository(Vessel).save(vessel);
+    const entry = await appendEntry(
+      tx,
+      actor,
+      batch.id,
+      { kind: 'topped-up', vesselId: vessel.id, vesselName: vessel.name, volumeL: request.volumeL, with: request.with },
+      { occurredAt: at(request.at) },
+    );
+    return { entryId: entry.id, warnings: headspaceWarnings([{ vessel, volumeL: after }], cellar) };
+  });
+}

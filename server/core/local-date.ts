@@ -1,0 +1,9 @@
+/**
+ * The calendar date (YYYY-MM-DD) of a moment in the cellar's time zone.
+ * @param timeZone - an IANA zone such as Europe/Berlin
+ */
+export function localDate(at: Date, timeZone: string): string {
+  const parts = new Intl.DateTimeFormat('en-GB', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(at);
+  const part = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
+  return `${part('year')}-${part('month')}-${part('day')}`;
+}

@@ -1,0 +1,46 @@
+import type { RequestHandler } from 'express';
+import type { DataSource } from 'typeorm';
+import { roleAtLeast, type Role } from '../../shared/roles';
+import { uuidSchema } from '../../shared/schemas/common';
+import { Membership } from '../entities/membership.entity';
+import { BadRequestError, ForbiddenError, NotFoundError, UnauthorizedError } from './errors';
+
+export interface CellarAccessPolicy {
+  /** Least role for POST, PUT and PATCH. DELETE always needs a Keeper. */
+  write: Role;
+}
+
+const READ_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** The least role a request needs under a given policy. */
+export function neededRole(method: string, policy: CellarAccessPolicy): Role {
+  if (READ_METHODS.has(method)) return 'guest';
+  if (method === 'DELETE') return 'keeper';
+  return policy.write;
+}
+
+/**
+ * The one gate for everything under /api/cellars/:cellarId. It loads the caller's membership
+ * (a cellar they are not in answers 404, exactly like one that does not exist) and checks the
+ * role the request method needs under the router's policy. Routers declare their policy once,
+ * where they are mounted, never per route.
+ */
+export function cellarAccess(ds: DataSource, policy: CellarAccessPolicy = { write: 'hand' }): RequestHandler {
+  return async (req, _res, next) => {
+    if (!req.user) throw new UnauthorizedError();
+    const id = uuidSchema.safeParse(req.params.cellarId);
+    if (!id.success) throw new BadRequestError('params.cellarId: must be an id (UUID)');
+    const membership = await ds.getRepository(Membership).findOne({
+      where: { cellarId: id.data, userId: req.user.id },
+    });
+    if (!membership) throw new NotFoundError('No such cellar.');
+    const needed = neededRole(req.method, policy);
+    if (!roleAtLeast(membership.role, needed)) {
+      throw new ForbiddenError(
+        needed === 'keeper' ? 'Only a Keeper of this cellar can do that.' : 'Guests can look but not change anything in this cellar.',
+      );
+    }
+    req.cellar = { id: membership.cellarId, role: membership.role };
+    next();
+  };
+}

@@ -1,0 +1,63 @@
+import type { Request, RequestHandler, Response } from 'express';
+import type { DataSource, EntityManager } from 'typeorm';
+import { z, ZodError, type ZodType } from 'zod';
+import type { Actor } from '../core/actor';
+import { inTransaction } from '../core/unit-of-work';
+import { actorFrom } from './actor-from-request';
+
+type Schemas = { params?: ZodType; query?: ZodType; body?: ZodType };
+type Parsed<S extends Schemas> = {
+  params: S['params'] extends ZodType ? z.output<S['params']> : Record<string, never>;
+  query: S['query'] extends ZodType ? z.output<S['query']> : Record<string, never>;
+  body: S['body'] extends ZodType ? z.output<S['body']> : undefined;
+};
+
+function parsePart(schema: ZodType | undefined, value: unknown, source: string): unknown {
+  if (!schema) return source === 'body' ? undefined : {};
+  const result = schema.safeParse(value ?? (source === 'body' ? undefined : {}));
+  if (!result.success) {
+    // The error handler prefixes each issue path with where it came from.
+    throw Object.assign(new ZodError(result.error.issues), { source });
+  }
+  return result.data;
+}
+
+/**
+ * Wraps a route: validates params, query and body with zod (400 on failure), then calls
+ * `fn` with typed input. A returned value is sent as JSON; `undefined` answers 204 unless
+ * `fn` already answered.
+ * @param schemas - zod schemas for the parts of the request the route reads
+ * @param fn - the route's work; usually one service call
+ */
+export function handle<S extends Schemas>(
+  schemas: S,
+  fn: (input: Parsed<S>, req: Request, res: Response) => Promise<unknown> | unknown,
+): RequestHandler {
+  return async (req: Request, res: Response) => {
+    const input = {
+      params: parsePart(schemas.params, req.params, 'params'),
+      query: parsePart(schemas.query, req.query, 'query'),
+      body: parsePart(schemas.body, req.body, 'body'),
+    } as Parsed<S>;
+    const result = await fn(input, req, res);
+    if (result !== undefined && !res.headersSent) res.json(result);
+    else if (!res.headersSent) res.status(204).end();
+  };
+}
+
+const READ_METHODS = new Set(['GET', 'HEAD']);
+
+/**
+ * `handle` for routes under a cellar: the request's actor and one transaction for the whole
+ * request (a read snapshot for GET, a write transaction otherwise), handed to `fn`. The
+ * answer is sent after the transaction commits.
+ */
+export function cellarHandler(ds: DataSource) {
+  return <S extends Schemas>(
+    schemas: S,
+    fn: (input: Parsed<S>, actor: Actor, tx: EntityManager, req: Request, res: Response) => Promise<unknown> | unknown,
+  ): RequestHandler =>
+    handle(schemas, (input, req, res) =>
+      inTransaction(ds, READ_METHODS.has(req.method) ? 'read' : 'write', async (tx) => fn(input, actorFrom(req), tx, req, res)),
+    );
+}

@@ -1,0 +1,97 @@
+import type { EntityManager } from 'typeorm';
+import type { BottleCard, ScanResult } from '../../shared/schemas/scan';
+import { labelCodeSchema } from '../../shared/schemas/vessels';
+import { NotFoundError } from '../http/errors';
+import { currentAbv } from '../labels/content';
+
+/**
+ * Label codes as printed on QR labels, resolved before any cellar is known: a visitor (a
+ * signed-in user, or nobody) is told only what their memberships allow.
+ */
+
+/** Where unknown codes and other cellars' codes lead: the same page for both. */
+export const NO_SUCH_LABEL = '/no-such-label';
+
+interface CodeTarget {
+  kind: 'vessel' | 'case' | 'lot';
+  id: string;
+  cellarId: string;
+  lotId: string | null;
+  publicCards: boolean;
+}
+
+/** The vessel, case or lot a (normalised) code belongs to, whatever the cellar; null if none. */
+async function findCode(tx: EntityManager, code: string): Promise<CodeTarget | null> {
+  const [row] = await tx.query(
+    `SELECT t.kind, t.id, t.cellar_id AS "cellarId", t.lot_id AS "lotId", c.public_bottle_cards AS "publicCards"
+       FROM (SELECT 'vessel' AS kind, id, cellar_id, NULL::uuid AS lot_id FROM vessels WHERE code = $1
+             UNION ALL SELECT 'lot', id, cellar_id, id FROM bottle_lots WHERE code = $1
+             UNION ALL SELECT 'case', id, cellar_id, lot_id FROM bottle_cases WHERE code = $1) t
+       JOIN cellars c ON c.id = t.cellar_id
+      LIMIT 1`,
+    [code],
+  );
+  return row ?? null;
+}
+
+async function isMember(tx: EntityManager, userId: string, cellarId: string): Promise<boolean> {
+  const [row] = await tx.query(`SELECT 1 FROM memberships WHERE user_id = $1 AND cellar_id = $2`, [userId, cellarId]);
+  return Boolean(row);
+}
+
+/** The client route that shows a thing: a vessel's page, or the Bottles page on its lot. */
+function clientPath(t: CodeTarget): string {
+  return t.kind === 'vessel' ? `/c/${t.cellarId}/vessels/${t.id}` : `/c/${t.cellarId}/bottles?lot=${t.lotId}`;
+}
+
+/**
+ * Where a printed label URL (/s/:code) sends this visitor. Members go to the record; a
+ * signed-out visitor signs in first; anyone else learns only that there is no such label
+ * here — unless the cellar shows public bottle cards and the code is a case or lot.
+ * @param userId - the signed-in user, undefined when signed out
+ */
+export async function scanDestination(tx: EntityManager, userId: string | undefined, rawCode: string): Promise<string> {
+  const parsed = labelCodeSchema.safeParse(rawCode);
+  if (!parsed.success) return userId ? NO_SUCH_LABEL : `/sign-in?next=/s/${encodeURIComponent(rawCode.slice(0, 16))}`;
+  const code = parsed.data;
+  const target = await findCode(tx, code);
+  const card = target !== null && target.kind !== 'vessel' && target.publicCards;
+  if (!userId) return card ? `/card/${code}` : `/sign-in?next=/s/${code}`;
+  if (target && (await isMember(tx, userId, target.cellarId))) return clientPath(target);
+  return card ? `/card/${code}` : NO_SUCH_LABEL;
+}
+
+/**
+ * A code as the Scan page resolves it, for a signed-in member of its cellar.
+ * @throws NotFoundError for unknown codes and codes of other cellars alike
+ */
+export async function resolveCode(tx: EntityManager, userId: string, code: string): Promise<ScanResult> {
+  const target = await findCode(tx, code);
+  if (!target || !(await isMember(tx, userId, target.cellarId))) throw new NotFoundError('No such label here.');
+  return { kind: target.kind, id: target.id, cellarId: target.cellarId, url: clientPath(target) };
+}
+
+/**
+ * The public bottle card of a case or lot code, only while its cellar shows public cards.
+ * Exactly the card's fields, nothing else of the cellar.
+ * @throws NotFoundError otherwise (vessel codes, unknown codes, cards off)
+ */
+export async function bottleCard(tx: EntityManager, code: string): Promise<BottleCard> {
+  const [row] = await tx.query(
+    `SELECT b.name AS "batchName", b.kind, l.bottled_on::text AS "bottledOn", l.abv_estimate::float8 AS "lotAbv",
+            b.og::float8 AS og, b.last_reading_sg::float8 AS "lastSg", l.sulfite_added AS "sulfiteAdded", l.note
+       FROM bottle_lots l JOIN batches b ON b.id = l.batch_id JOIN cellars c ON c.id = l.cellar_id
+      WHERE c.public_bottle_cards
+        AND (l.code = $1 OR l.id = (SELECT lot_id FROM bottle_cases WHERE code = $1))`,
+    [code],
+  );
+  if (!row) throw new NotFoundError('No such bottle card.');
+  return {
+    batchName: row.batchName,
+    kind: row.kind,
+    bottledOn: row.bottledOn,
+    abvEstimate: row.lotAbv ?? currentAbv(row.og, row.lastSg),
+    sulfiteAdded: row.sulfiteAdded,
+    note: row.note,
+  };
+}

@@ -1,0 +1,66 @@
+import { Router, type Request, type Response } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import type { DataSource } from 'typeorm';
+import { scanCodeParamsSchema } from '../../shared/schemas/scan';
+import { inTransaction } from '../core/unit-of-work';
+import { handle } from '../http/handle';
+import { requireSignIn } from '../http/require-sign-in';
+import { bottleCard, resolveCode, scanDestination } from './code-lookup';
+
+export interface ScanRouteOptions {
+  /** Code look-ups allowed per address per minute, over /s, /api/scan and /api/cards together. */
+  lookupsPerMinute?: number;
+}
+
+const TOO_MANY = 'Too many label look-ups from this address. Wait a minute, then try again.';
+
+const TOO_MANY_PAGE = `<!doctype html>
+<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
+<title>Slow down · Cellarwright</title></head>
+<body style="font-family: system-ui, sans-serif; max-width: 32rem; margin: 15vh auto; padding: 0 1rem; color: #232134">
+<h1 style="font-size: 1.4rem">Slow down a little</h1>
+<p>${TOO_MANY}</p></body></html>`;
+
+function tooMany(req: Request, res: Response): void {
+  if (req.originalUrl.startsWith('/api/')) {
+    res.status(429).json({ error: 'too_many_requests', message: TOO_MANY });
+  } else {
+    res.status(429).type('html').send(TOO_MANY_PAGE);
+  }
+}
+
+/**
+ * Printed label URLs and code look-ups, mounted at the app root:
+ * GET /s/:code (phones open it; redirects), GET /api/scan/:code (signed in),
+ * GET /api/cards/:code (public bottle cards). Look-ups are rate-limited per address.
+ */
+export function scanRoutes(ds: DataSource, options: ScanRouteOptions = {}): Router {
+  const router = Router();
+  const limiter = rateLimit({
+    windowMs: 60_000,
+    limit: options.lookupsPerMinute ?? 60,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: tooMany,
+  });
+  router.get(
+    '/s/:code',
+    limiter,
+    handle({}, async (_input, req, res) => {
+      const target = await inTransaction(ds, 'read', (tx) => scanDestination(tx, req.user?.id, String(req.params.code ?? '')));
+      res.set('Cache-Control', 'no-store').redirect(302, target);
+    }),
+  );
+  router.get(
+    '/api/scan/:code',
+    limiter,
+    requireSignIn,
+    handle({ params: scanCodeParamsSchema }, ({ params }, req) => inTransaction(ds, 'read', (tx) => resolveCode(tx, req.user!.id, params.code))),
+  );
+  router.get(
+    '/api/cards/:code',
+    limiter,
+    handle({ params: scanCodeParamsSchema }, ({ params }) => inTransaction(ds, 'read', (tx) => bottleCard(tx, params.code))),
+  );
+  return router;
+}

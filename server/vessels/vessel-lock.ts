@@ -1,0 +1,60 @@
+import { In, type EntityManager } from 'typeorm';
+import { vesselState } from '../../shared/domain/vessel-state';
+import { Batch } from '../entities/batch.entity';
+import { Cellar } from '../entities/cellar.entity';
+import { Vessel } from '../entities/vessel.entity';
+import { BadRequestError, ConflictError, NotFoundError } from '../http/errors';
+
+export interface VesselRef {
+  vesselId: string;
+  /** The version the caller saw; a different one now means someone else changed it. */
+  expectedVersion?: number;
+}
+
+/** "now holds Quince cyser (18.5 L)" / "is now empty and dirty". */
+export async function describeVesselNow(tx: EntityManager, vessel: Vessel): Promise<string> {
+  if (vessel.retiredAt) return 'is now retired';
+  if (vessel.batchId) {
+    const batch = await tx.getRepository(Batch).findOneBy({ id: vessel.batchId });
+    return `now holds ${batch?.name ?? 'another batch'} (${vessel.volumeL} L)`;
+  }
+  const cellar = await tx.getRepository(Cellar).findOneByOrFail({ id: vessel.cellarId });
+  return `is now empty and ${vesselState(vessel, cellar.sanitisedValidDays)}`;
+}
+
+/** 409 naming the vessel, what it is now and when it changed. */
+export async function vesselChangedError(tx: EntityManager, vessel: Vessel, what = 'changed while you were working'): Promise<ConflictError> {
+  const when = vessel.updatedAt.toISOString().slice(0, 16).replace('T', ' ');
+  return new ConflictError(`${vessel.name} ${what}: it ${await describeVesselNow(tx, vessel)} (changed ${when} UTC). Reload and try again.`, {
+    vesselId: vessel.id,
+    currentVersion: vessel.version,
+  });
+}
+
+/**
+ * Locks the vessels for the rest of the transaction (SELECT … FOR UPDATE, in id order so two
+ * operations never deadlock) and checks each caller's expected version. A second operation on
+ * the same vessel waits here for the first to commit, then sees what it did.
+ * @returns the vessels by id
+ */
+export async function lockVessels(tx: EntityManager, cellarId: string, refs: VesselRef[]): Promise<Map<string, Vessel>> {
+  const ids = refs.map((r) => r.vesselId);
+  if (new Set(ids).size !== ids.length) throw new BadRequestError('The same vessel is listed twice.');
+  if (ids.length === 0) return new Map();
+  const rows = await tx
+    .getRepository(Vessel)
+    .createQueryBuilder('v')
+    .where({ id: In(ids), cellarId })
+    .orderBy('v.id')
+    .setLock('pessimistic_write')
+    .getMany();
+  const byId = new Map(rows.map((v) => [v.id, v]));
+  for (const ref of refs) {
+    const vessel = byId.get(ref.vesselId);
+    if (!vessel) throw new NotFoundError('No such vessel in this cellar.');
+    if (ref.expectedVersion !== undefined && ref.expectedVersion !== vessel.version) {
+      throw await vesselChangedError(tx, vessel);
+    }
+  }
+  return byId;
+}
