@@ -2,8 +2,9 @@ import { defineConfig, mergeConfig } from 'vitest/config';
 import viteConfig from './vite.config.ts';
 
 /**
- * Two tiers: `unit` (pure code: shared/calc, helpers) and `db` (API over HTTP against the
- * in-process app and a real PostgreSQL started by the global setup, plus Chromium end-to-end).
+ * Three tiers: `unit` (pure code: shared/calc, helpers), `db` (API over HTTP against the
+ * in-process app and a real PostgreSQL started by the global setup, plus Chromium end-to-end)
+ * and `client` (Vue components and composables in happy-dom, the network faked at `fetch`).
  */
 export default mergeConfig(
   viteConfig,
@@ -26,6 +27,10 @@ export default mergeConfig(
             testTimeout: 30_000,
             hookTimeout: 60_000,
           },
+        },
+        {
+          extends: true,
+          test: { name: 'client', include: ['tests/client/**/*.test.ts'], environment: 'happy-dom', setupFiles: ['tests/client/support/setup.ts'] },
         },
       ],
     },

@@ -11,6 +11,7 @@ import './css/app.css';
 import App from './App.vue';
 import { setUnauthorizedHandler } from './api/http';
 import { createAppRouter } from './router';
+import { routeTo } from './router/locations';
 import { useSessionStore } from './stores/session';
 import { brandColours } from './theme';
 
@@ -29,7 +30,7 @@ setUnauthorizedHandler(() => {
   useSessionStore(pinia).forget();
   const here = router.currentRoute.value;
   // Before the first navigation settles the route is the bare start location: the guard decides then.
-  if (here.matched.length > 0 && !here.meta.public) void router.push({ name: 'sign-in', query: { next: here.fullPath } });
+  if (here.matched.length > 0 && !here.meta.public) void router.push(routeTo('sign-in', {}, { next: here.fullPath }));
 });
 
 app.mount('#app');

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { CARBONATION, CLOSURES } from './journal';
-import { slotRefSchema } from './vessels';
+import { pageOf, slotRefSchema } from './vessels';
 
 export const DEPARTURE_REASONS = ['drunk', 'gift', 'sold', 'competition', 'broken'] as const;
 export const DEPARTURE_LABELS: Record<(typeof DEPARTURE_REASONS)[number], string> = {
@@ -66,3 +66,26 @@ export const lotListQuerySchema = z.object({
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
 });
+
+// ---- Answers ----------------------------------------------------------------------------
+
+/** What a bottling answers: the new lot, warnings about the batch, cautions for the bottles. */
+export const bottlingResultSchema = z.object({
+  lot: bottleLotSchema,
+  warnings: z.array(z.string()),
+  cautions: z.array(z.string()),
+});
+export type BottlingResult = z.infer<typeof bottlingResultSchema>;
+
+/** A case with a short summary of its lot (enough to find the lot again). */
+export const caseDetailSchema = bottleCaseSchema.extend({
+  lot: z.object({ id: z.uuid(), batchName: z.string() }).loose(),
+});
+export type CaseDetail = z.infer<typeof caseDetailSchema>;
+
+export const lotPageSchema = pageOf(bottleLotSchema);
+export type LotPage = z.infer<typeof lotPageSchema>;
+
+/** A lot with its departures, newest first, for the lot page. */
+export const lotDetailSchema = bottleLotSchema.extend({ departures: z.array(departureSchema) });
+export type LotDetail = z.infer<typeof lotDetailSchema>;

@@ -1,9 +1,10 @@
 import { sessionUserSchema, type SessionUser, type SignInRequest } from '@shared/schemas/auth';
 import { request } from './http';
+import { apiPath } from './paths';
 
 export const signIn = (body: SignInRequest): Promise<SessionUser> =>
-  request('POST', '/api/auth/sign-in', sessionUserSchema, body);
+  request('POST', apiPath('auth', 'sign-in'), sessionUserSchema, body);
 
-export const signOut = (): Promise<void> => request('POST', '/api/auth/sign-out');
+export const signOut = (): Promise<void> => request('POST', apiPath('auth', 'sign-out'));
 
-export const fetchMe = (): Promise<SessionUser> => request('GET', '/api/auth/me', sessionUserSchema);
+export const fetchMe = (): Promise<SessionUser> => request('GET', apiPath('auth', 'me'), sessionUserSchema);

@@ -22,46 +22,35 @@ import type {
 import { rackTargetSuggestionSchema, type Vessel } from '@shared/schemas/vessels';
 import type { RackingStage } from '@shared/calc';
 import { request } from './http';
+import { cellarPath, withQuery } from './paths';
 import { listVessels } from './vessels';
 
 export type BatchPage = z.infer<typeof batchPageSchema>;
 export type RackTargetSuggestion = z.infer<typeof rackTargetSuggestionSchema>;
 
-const cellarBase = (cellarId: string) => `/api/cellars/${encodeURIComponent(cellarId)}`;
-const batchesBase = (cellarId: string) => `${cellarBase(cellarId)}/batches`;
-const batchBase = (cellarId: string, batchId: string) => `${batchesBase(cellarId)}/${encodeURIComponent(batchId)}`;
-
-/** A query string from the filled-in parameters only. */
-function queryString(params: Record<string, unknown>): string {
-  const search = new URLSearchParams();
-  for (const [key, value] of Object.entries(params)) {
-    if (value !== undefined && value !== null && value !== '') search.set(key, String(value));
-  }
-  const text = search.toString();
-  return text ? `?${text}` : '';
-}
+const batchPath = (cellarId: string, batchId: string, ...rest: string[]) => cellarPath(cellarId, 'batches', batchId, ...rest);
 
 /** One page of batches, filtered and sorted on the server. */
 export const fetchBatches = (cellarId: string, query: BatchListQuery): Promise<BatchPage> =>
-  request('GET', `${batchesBase(cellarId)}${queryString(query)}`, batchPageSchema);
+  request('GET', withQuery(cellarPath(cellarId, 'batches'), query), batchPageSchema);
 
 export const fetchBatch = (cellarId: string, batchId: string): Promise<BatchDetail> =>
-  request('GET', batchBase(cellarId, batchId), batchDetailSchema);
+  request('GET', batchPath(cellarId, batchId), batchDetailSchema);
 
 export const startBatch = (cellarId: string, body: BatchStart): Promise<OperationResult> =>
-  request('POST', batchesBase(cellarId), operationResultSchema, body);
+  request('POST', cellarPath(cellarId, 'batches'), operationResultSchema, body);
 
 export const updateBatch = (cellarId: string, batchId: string, changes: z.input<typeof batchUpdateSchema>): Promise<BatchDetail> =>
-  request('PATCH', batchBase(cellarId, batchId), batchDetailSchema, changes);
+  request('PATCH', batchPath(cellarId, batchId), batchDetailSchema, changes);
 
 /** Keeper only; the server refuses (409) while the batch is in vessels or bottled. */
-export const deleteBatch = (cellarId: string, batchId: string): Promise<void> => request('DELETE', batchBase(cellarId, batchId));
+export const deleteBatch = (cellarId: string, batchId: string): Promise<void> => request('DELETE', batchPath(cellarId, batchId));
 
 /** Every journal-writing operation posts to its own path and answers an OperationResult. */
 const operation =
   <Body>(path: string) =>
   (cellarId: string, batchId: string, body: Body): Promise<OperationResult> =>
-    request('POST', `${batchBase(cellarId, batchId)}/${path}`, operationResultSchema, body);
+    request('POST', batchPath(cellarId, batchId, path), operationResultSchema, body);
 
 export const logReading = operation<ReadingRequest>('readings');
 export const rackBatch = operation<RackRequest>('rackings');
@@ -75,11 +64,11 @@ export const addNote = operation<z.input<typeof noteRequestSchema>>('notes');
 
 /** Blends vessels of two or more batches into a new batch; answers with the new batch. */
 export const blendBatches = (cellarId: string, body: z.input<typeof blendRequestSchema>): Promise<OperationResult> =>
-  request('POST', `${batchesBase(cellarId)}/blends`, operationResultSchema, body);
+  request('POST', cellarPath(cellarId, 'batches', 'blends'), operationResultSchema, body);
 
 /** Records a correction of an earlier journal entry (the entry itself never changes). */
 export const amendEntry = (cellarId: string, batchId: string, entryId: string, body: z.input<typeof amendRequestSchema>): Promise<OperationResult> =>
-  request('POST', `${batchBase(cellarId, batchId)}/journal/${encodeURIComponent(entryId)}/amendments`, operationResultSchema, body);
+  request('POST', batchPath(cellarId, batchId, 'journal', entryId, 'amendments'), operationResultSchema, body);
 
 // ---- Vessel look-ups the batch operations need (choosing where to fill or rack) -----------
 
@@ -98,6 +87,6 @@ export const fetchRackTarget = (
 ): Promise<RackTargetSuggestion> =>
   request(
     'GET',
-    `${cellarBase(cellarId)}/vessels/rack-target${queryString({ volumeL, stage, exclude: excludeVesselIds.join(',') || undefined })}`,
+    withQuery(cellarPath(cellarId, 'vessels', 'rack-target'), { volumeL, stage, exclude: excludeVesselIds.join(',') || undefined }),
     rackTargetSuggestionSchema,
   );

@@ -1,14 +1,9 @@
-import { z } from 'zod';
-import { bottleLotSchema } from '@shared/schemas/bottles';
+import { bottlingResultSchema, type BottlingResult } from '@shared/schemas/bottles';
 import type { BottleRequest } from '@shared/schemas/journal';
 import { ApiError, request } from './http';
+import { cellarPath } from './paths';
 
-export const bottlingResultSchema = z.object({
-  lot: bottleLotSchema,
-  warnings: z.array(z.string()),
-  cautions: z.array(z.string()),
-});
-export type BottlingResult = z.infer<typeof bottlingResultSchema>;
+export { bottlingResultSchema, type BottlingResult };
 
 /** What the server says when the fermentation does not look finished (409 confirmation_required). */
 export interface BottlingConfirmation {
@@ -19,12 +14,7 @@ export interface BottlingConfirmation {
 
 /** Bottles a batch into a lot of cases. */
 export const bottleBatch = (cellarId: string, batchId: string, body: BottleRequest): Promise<BottlingResult> =>
-  request(
-    'POST',
-    `/api/cellars/${encodeURIComponent(cellarId)}/batches/${encodeURIComponent(batchId)}/bottlings`,
-    bottlingResultSchema,
-    body,
-  );
+  request('POST', cellarPath(cellarId, 'batches', batchId, 'bottlings'), bottlingResultSchema, body);
 
 /** The confirmation the server asks for before bottling an unfinished fermentation, or null for any other error. */
 export function confirmationRequired(err: unknown): BottlingConfirmation | null {

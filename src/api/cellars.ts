@@ -2,23 +2,22 @@ import { z } from 'zod';
 import { cellarSchema, memberSchema, type Cellar, type CellarUpdate, type Member } from '@shared/schemas/cellars';
 import type { Role } from '@shared/roles';
 import { request } from './http';
-
-const base = (cellarId: string) => `/api/cellars/${encodeURIComponent(cellarId)}`;
+import { cellarPath } from './paths';
 
 export const fetchCellar = (cellarId: string): Promise<Cellar> =>
-  request('GET', `${base(cellarId)}/settings`, cellarSchema);
+  request('GET', cellarPath(cellarId, 'settings'), cellarSchema);
 
 export const updateCellar = (cellarId: string, changes: CellarUpdate): Promise<Cellar> =>
-  request('PATCH', `${base(cellarId)}/settings`, cellarSchema, changes);
+  request('PATCH', cellarPath(cellarId, 'settings'), cellarSchema, changes);
 
 export const fetchMembers = (cellarId: string): Promise<Member[]> =>
-  request('GET', `${base(cellarId)}/members`, z.array(memberSchema));
+  request('GET', cellarPath(cellarId, 'members'), z.array(memberSchema));
 
 export const addMember = (cellarId: string, email: string, role: Role): Promise<Member> =>
-  request('POST', `${base(cellarId)}/members`, memberSchema, { email, role });
+  request('POST', cellarPath(cellarId, 'members'), memberSchema, { email, role });
 
 export const changeMemberRole = (cellarId: string, memberId: string, role: Role): Promise<Member[]> =>
-  request('PATCH', `${base(cellarId)}/members/${memberId}`, z.array(memberSchema), { role });
+  request('PATCH', cellarPath(cellarId, 'members', memberId), z.array(memberSchema), { role });
 
 export const removeMember = (cellarId: string, memberId: string): Promise<void> =>
-  request('DELETE', `${base(cellarId)}/members/${memberId}`);
+  request('DELETE', cellarPath(cellarId, 'members', memberId));

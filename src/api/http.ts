@@ -27,6 +27,21 @@ export function setUnauthorizedHandler(handler: () => void): void {
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
+/** The error thrown when the request never reached the server. */
+export const offlineError = (): ApiError => new ApiError(0, 'offline', 'Cannot reach Cellarwright. Check the connection and try again.');
+
+/**
+ * The ApiError for an answer that is not ok: the server's code, message and field issues when
+ * its body is the shared error shape, else a plain "answered 500".
+ * @param raw - the answer's JSON body ({} when it had none)
+ */
+export function errorFromAnswer(status: number, raw: unknown): ApiError {
+  const parsed = apiErrorSchema.safeParse(raw);
+  const body = (typeof raw === 'object' && raw !== null ? raw : {}) as Record<string, unknown>;
+  if (!parsed.success) return new ApiError(status, 'http_error', `The server answered ${status}.`, [], body);
+  return new ApiError(status, parsed.data.error, parsed.data.message, parsed.data.issues ?? [], body);
+}
+
 /**
  * Calls the API and checks the answer against the shared zod schema.
  * @param schema - the response schema; omit for answers without a body (204)
@@ -41,14 +56,12 @@ export async function request<T>(method: Method, url: string, schema?: ZodType<T
       body: body === undefined ? undefined : JSON.stringify(body),
     });
   } catch {
-    throw new ApiError(0, 'offline', 'Cannot reach Cellarwright. Check the connection and try again.');
+    throw offlineError();
   }
   if (!res.ok) {
     const raw = await res.json().catch(() => ({}));
-    const parsed = apiErrorSchema.safeParse(raw);
     if (res.status === 401 && !url.endsWith('/auth/sign-in')) onUnauthorized?.();
-    const message = parsed.success ? parsed.data.message : `The server answered ${res.status}.`;
-    throw new ApiError(res.status, parsed.success ? parsed.data.error : 'http_error', message, parsed.success ? parsed.data.issues : [], raw);
+    throw errorFromAnswer(res.status, raw);
   }
   if (!schema || res.status === 204) return undefined as T;
   return schema.parse(await res.json());

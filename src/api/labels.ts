@@ -11,9 +11,8 @@ import {
   type ShelfContents,
   type ShelfDirectory,
 } from '@shared/schemas/labels';
-import { ApiError, request } from './http';
-
-const base = (cellarId: string) => `/api/cellars/${encodeURIComponent(cellarId)}/labels`;
+import { ApiError, offlineError, request } from './http';
+import { cellarPath, withQuery } from './paths';
 
 /** What to print, as the PDF endpoint takes it. */
 export interface LabelPrintRequest {
@@ -29,7 +28,7 @@ export interface LabelPrintRequest {
 }
 
 export const fetchLabelTemplates = (cellarId: string): Promise<LabelTemplateSummary[]> =>
-  request('GET', `${base(cellarId)}/templates`, z.array(labelTemplateSummarySchema));
+  request('GET', cellarPath(cellarId, 'labels', 'templates'), z.array(labelTemplateSummarySchema));
 
 /** The PDF's address (for the preview frame, download and print). */
 export function labelPdfUrl(cellarId: string, req: LabelPrintRequest): string {
@@ -39,7 +38,7 @@ export function labelPdfUrl(cellarId: string, req: LabelPrintRequest): string {
   for (const key of ['shelf', 'lotCases', 'batch'] as const) if (req[key]) params.set(key, req[key]!);
   if (req.skip) params.set('skip', String(req.skip));
   if (req.download) params.set('download', 'true');
-  return `${base(cellarId)}/pdf?${params}`;
+  return `${cellarPath(cellarId, 'labels', 'pdf')}?${params}`;
 }
 
 /**
@@ -51,7 +50,7 @@ export async function checkLabelPdf(url: string): Promise<number> {
   try {
     res = await fetch(url, { credentials: 'same-origin' });
   } catch {
-    throw new ApiError(0, 'offline', 'Cannot reach Cellarwright. Check the connection and try again.');
+    throw offlineError();
   }
   if (!res.ok) {
     const body = await res.json().catch(() => ({}));
@@ -63,16 +62,16 @@ export async function checkLabelPdf(url: string): Promise<number> {
 
 /** Vessels, lots with their cases and batches to pick from, matching `q`. */
 export const fetchLabelChoices = (cellarId: string, q = ''): Promise<LabelChoices> =>
-  request('GET', `${base(cellarId)}/choices${q ? `?q=${encodeURIComponent(q)}` : ''}`, labelChoicesSchema);
+  request('GET', withQuery(cellarPath(cellarId, 'labels', 'choices'), { q }), labelChoicesSchema);
 
 /** Racks and shelves with how full each shelf is. */
 export const fetchShelfDirectory = (cellarId: string): Promise<ShelfDirectory> =>
-  request('GET', `${base(cellarId)}/shelves`, shelfDirectorySchema);
+  request('GET', cellarPath(cellarId, 'labels', 'shelves'), shelfDirectorySchema);
 
 /** What the record says sits on a shelf, with label codes. */
 export const fetchShelfContents = (cellarId: string, shelfId: string): Promise<ShelfContents> =>
-  request('GET', `${base(cellarId)}/shelf/${encodeURIComponent(shelfId)}/contents`, shelfContentsSchema);
+  request('GET', cellarPath(cellarId, 'labels', 'shelf', shelfId, 'contents'), shelfContentsSchema);
 
 /** Compares the codes scanned on a shelf with the record. */
 export const checkShelf = (cellarId: string, shelfId: string, codes: string[]): Promise<ShelfCheck> =>
-  request('GET', `${base(cellarId)}/shelf/${encodeURIComponent(shelfId)}/check?codes=${codes.join(',')}`, shelfCheckSchema);
+  request('GET', withQuery(cellarPath(cellarId, 'labels', 'shelf', shelfId, 'check'), { codes: codes.join(',') }), shelfCheckSchema);

@@ -1,17 +1,14 @@
-import { z } from 'zod';
-import { apiErrorSchema } from '@shared/schemas/common';
-import { ApiError } from './http';
+import { photoUploadResultSchema, type PhotoUploadResult } from '@shared/schemas/photos';
+import { errorFromAnswer, offlineError } from './http';
+import { cellarPath } from './paths';
 
-const uploadResultSchema = z.object({ entryId: z.uuid(), photoId: z.uuid() });
-export type PhotoUploadResult = z.infer<typeof uploadResultSchema>;
-
-const cellarBase = (cellarId: string) => `/api/cellars/${encodeURIComponent(cellarId)}`;
+export type { PhotoUploadResult };
 
 /** Where the browser loads a photo's small version. */
-export const photoThumbnailUrl = (cellarId: string, photoId: string) => `${cellarBase(cellarId)}/photos/${encodeURIComponent(photoId)}/thumbnail`;
+export const photoThumbnailUrl = (cellarId: string, photoId: string) => cellarPath(cellarId, 'photos', photoId, 'thumbnail');
 
 /** Where the browser loads a photo at full size. */
-export const photoUrl = (cellarId: string, photoId: string) => `${cellarBase(cellarId)}/photos/${encodeURIComponent(photoId)}`;
+export const photoUrl = (cellarId: string, photoId: string) => cellarPath(cellarId, 'photos', photoId);
 
 /**
  * Uploads a photo to a batch's journal (multipart, so not through `request`, which sends JSON).
@@ -23,20 +20,16 @@ export async function uploadPhoto(cellarId: string, batchId: string, photo: File
   if (caption.trim()) form.append('caption', caption.trim());
   let res: Response;
   try {
-    res = await fetch(`${cellarBase(cellarId)}/batches/${encodeURIComponent(batchId)}/photos`, {
+    res = await fetch(cellarPath(cellarId, 'batches', batchId, 'photos'), {
       method: 'POST',
       credentials: 'same-origin',
       headers: { accept: 'application/json' },
       body: form,
     });
   } catch {
-    throw new ApiError(0, 'offline', 'Cannot reach Cellarwright. Check the connection and try again.');
+    throw offlineError();
   }
   const raw = await res.json().catch(() => ({}));
-  if (!res.ok) {
-    const parsed = apiErrorSchema.safeParse(raw);
-    const message = parsed.success ? parsed.data.message : `The server answered ${res.status}.`;
-    throw new ApiError(res.status, parsed.success ? parsed.data.error : 'http_error', message, parsed.success ? parsed.data.issues : [], raw);
-  }
-  return uploadResultSchema.parse(raw);
+  if (!res.ok) throw errorFromAnswer(res.status, raw);
+  return photoUploadResultSchema.parse(raw);
 }

@@ -1,9 +1,7 @@
 import { z } from 'zod';
 import { rackSchema, type Rack, type RackCreate } from '@shared/schemas/places';
 import { request } from './http';
-
-const base = (cellarId: string) => `/api/cellars/${encodeURIComponent(cellarId)}/racks`;
-const one = (cellarId: string, rackId: string) => `${base(cellarId)}/${encodeURIComponent(rackId)}`;
+import { cellarPath } from './paths';
 
 export interface RackChanges {
   name?: string;
@@ -11,13 +9,13 @@ export interface RackChanges {
 }
 
 /** Every rack of the cellar with its shelves and what sits in each slot. */
-export const fetchRacks = (cellarId: string): Promise<Rack[]> => request('GET', base(cellarId), z.array(rackSchema));
+export const fetchRacks = (cellarId: string): Promise<Rack[]> => request('GET', cellarPath(cellarId, 'racks'), z.array(rackSchema));
 
 /** Creates a rack; `shelves` holds the slot count of each shelf, top shelf first. */
-export const createRack = (cellarId: string, rack: RackCreate): Promise<Rack> => request('POST', base(cellarId), rackSchema, rack);
+export const createRack = (cellarId: string, rack: RackCreate): Promise<Rack> => request('POST', cellarPath(cellarId, 'racks'), rackSchema, rack);
 
 export const updateRack = (cellarId: string, rackId: string, changes: RackChanges): Promise<Rack> =>
-  request('PATCH', one(cellarId, rackId), rackSchema, changes);
+  request('PATCH', cellarPath(cellarId, 'racks', rackId), rackSchema, changes);
 
 /** Deletes an empty rack (Keeper only; 409 while anything sits on it). */
-export const deleteRack = (cellarId: string, rackId: string): Promise<void> => request('DELETE', one(cellarId, rackId));
+export const deleteRack = (cellarId: string, rackId: string): Promise<void> => request('DELETE', cellarPath(cellarId, 'racks', rackId));

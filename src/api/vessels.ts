@@ -11,9 +11,9 @@ import {
 import type { MoveRequest } from '@shared/schemas/places';
 import type { z } from 'zod';
 import { request } from './http';
+import { cellarPath, withQuery } from './paths';
 
-const base = (cellarId: string) => `/api/cellars/${encodeURIComponent(cellarId)}/vessels`;
-const one = (cellarId: string, vesselId: string) => `${base(cellarId)}/${encodeURIComponent(vesselId)}`;
+const vesselPath = (cellarId: string, vesselId: string, ...rest: string[]) => cellarPath(cellarId, 'vessels', vesselId, ...rest);
 
 export type VesselPage = z.infer<typeof vesselPageSchema>;
 export interface VesselChanges {
@@ -25,46 +25,35 @@ export interface VesselChanges {
   expectedVersion?: number;
 }
 
-/** Turns list filters into a query string, leaving out empty ones. */
-function queryString(query: VesselListQuery): string {
-  const params = new URLSearchParams();
-  for (const [key, value] of Object.entries(query)) {
-    if (value === undefined || value === null || value === '') continue;
-    params.set(key, String(value));
-  }
-  const text = params.toString();
-  return text ? `?${text}` : '';
-}
-
 /** One page of the cellar's vessels, filtered on the server. */
 export const listVessels = (cellarId: string, query: VesselListQuery = {}): Promise<VesselPage> =>
-  request('GET', `${base(cellarId)}${queryString(query)}`, vesselPageSchema);
+  request('GET', withQuery(cellarPath(cellarId, 'vessels'), query), vesselPageSchema);
 
 export const createVessel = (cellarId: string, vessel: VesselCreate): Promise<Vessel> =>
-  request('POST', base(cellarId), vesselSchema, vessel);
+  request('POST', cellarPath(cellarId, 'vessels'), vesselSchema, vessel);
 
 /** The Vessel page's record: the vessel, headspace, last reading, sanitised-until. */
 export const fetchVessel = (cellarId: string, vesselId: string): Promise<VesselDetail> =>
-  request('GET', one(cellarId, vesselId), vesselDetailSchema);
+  request('GET', vesselPath(cellarId, vesselId), vesselDetailSchema);
 
 export const updateVessel = (cellarId: string, vesselId: string, changes: VesselChanges): Promise<Vessel> =>
-  request('PATCH', one(cellarId, vesselId), vesselSchema, changes);
+  request('PATCH', vesselPath(cellarId, vesselId), vesselSchema, changes);
 
 /**
  * Marks an empty vessel dirty, clean or sanitised. The server refuses dirty → sanitised (409).
  * @param expectedVersion - the version shown; a different one answers 409 saying what changed
  */
 export const setCleaning = (cellarId: string, vesselId: string, state: CleaningState, expectedVersion?: number): Promise<Vessel> =>
-  request('POST', `${one(cellarId, vesselId)}/cleaning`, vesselSchema, { state, expectedVersion });
+  request('POST', vesselPath(cellarId, vesselId, 'cleaning'), vesselSchema, { state, expectedVersion });
 
 /** Retires a vessel (or brings it back into use with `retired: false`). */
 export const setRetired = (cellarId: string, vesselId: string, retired: boolean, expectedVersion?: number): Promise<Vessel> =>
-  request('POST', `${one(cellarId, vesselId)}/retirement`, vesselSchema, { retired, expectedVersion });
+  request('POST', vesselPath(cellarId, vesselId, 'retirement'), vesselSchema, { retired, expectedVersion });
 
 /** Puts the vessel into a free slot, or takes it off its shelf with `to: null`. */
 export const moveVessel = (cellarId: string, vesselId: string, move: MoveRequest): Promise<Vessel> =>
-  request('PUT', `${one(cellarId, vesselId)}/place`, vesselSchema, move);
+  request('PUT', vesselPath(cellarId, vesselId, 'place'), vesselSchema, move);
 
 /** Deletes an empty vessel (Keeper only). */
 export const deleteVessel = (cellarId: string, vesselId: string): Promise<void> =>
-  request('DELETE', one(cellarId, vesselId));
+  request('DELETE', vesselPath(cellarId, vesselId));

@@ -1,7 +1,7 @@
-import type { RouteName } from '@/router/routes';
+import type { CellarScreenName } from '@/router/routes';
 
 export interface NavItem {
-  name: RouteName;
+  name: CellarScreenName;
   label: string;
   icon: string;
   /** Shown in the phone's bottom bar. */

@@ -1,6 +1,7 @@
-import { createRouter, createWebHistory, type RouteLocationRaw, type Router, type RouterHistory } from 'vue-router';
+import { createRouter, createWebHistory, type Router, type RouterHistory } from 'vue-router';
 import { useSessionStore } from '@/stores/session';
-import { routes, type RouteName } from './routes';
+import { routeTo } from './locations';
+import { routes } from './routes';
 
 /**
  * Builds the router with its sign-in guard. Tests pass a memory history.
@@ -13,12 +14,12 @@ export function createAppRouter(history: RouterHistory = createWebHistory()): Ro
     const session = useSessionStore();
     if (!session.loaded) await session.load().catch(() => undefined);
     if (!to.meta.public && !session.user) {
-      return { name: 'sign-in', query: to.fullPath === '/' ? {} : { next: to.fullPath } };
+      return routeTo('sign-in', {}, to.fullPath === '/' ? {} : { next: to.fullPath });
     }
     const cellarId = to.params.cellarId;
     if (typeof cellarId === 'string') {
       if (!session.cellars.some((c) => c.cellarId === cellarId)) {
-        return { name: 'not-found', params: { pathMatch: to.path.slice(1).split('/') } };
+        return routeTo('not-found', { pathMatch: to.path.slice(1).split('/') });
       }
       session.openCellar(cellarId);
     }
@@ -30,9 +31,4 @@ export function createAppRouter(history: RouterHistory = createWebHistory()): Ro
   });
 
   return router;
-}
-
-/** A location by route name, checked against the list of names. */
-export function to(name: RouteName, params?: Record<string, string>, query?: Record<string, string>): RouteLocationRaw {
-  return { name, params, query };
 }

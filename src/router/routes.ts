@@ -1,25 +1,42 @@
 import type { RouteRecordRaw } from 'vue-router';
 
-/** Every route name, so links and pushes are checked by the compiler. */
-export type RouteName =
-  | 'sign-in'
-  | 'home'
-  | 'today'
-  | 'scan'
-  | 'batches'
-  | 'batch'
-  | 'vessels'
-  | 'vessel'
-  | 'bottles'
-  | 'cellar-map'
-  | 'labels'
-  | 'tasks'
-  | 'calculators'
-  | 'settings'
-  | 'no-such-label'
-  | 'bottle-card'
-  | 'label-url'
-  | 'not-found';
+/** The path parameters of a page inside a cellar (`/c/:cellarId/…`). */
+type InCellar<Extra = object> = { cellarId: string } & Extra;
+type NoParams = Record<string, never>;
+
+/**
+ * Every route name with the path parameters it needs, so links and pushes (through `routeTo`,
+ * router/locations.ts) are checked by the compiler: a wrong name or a missing id does not build.
+ */
+export interface RouteParams {
+  'sign-in': NoParams;
+  home: NoParams;
+  today: InCellar;
+  scan: InCellar;
+  batches: InCellar;
+  batch: InCellar<{ batchId: string }>;
+  vessels: InCellar;
+  vessel: InCellar<{ vesselId: string }>;
+  bottles: InCellar;
+  'cellar-map': InCellar;
+  labels: InCellar;
+  tasks: InCellar;
+  calculators: InCellar;
+  settings: InCellar;
+  'no-such-label': NoParams;
+  'bottle-card': { code: string };
+  'label-url': { code: string };
+  'not-found': { pathMatch: string[] };
+}
+export type RouteName = keyof RouteParams;
+
+/** The screens of a cellar that need nothing but the cellar's id (the menu's screens, the lists). */
+export type CellarScreenName = {
+  [N in RouteName]: RouteParams[N] extends InCellar ? (InCellar extends RouteParams[N] ? N : never) : never;
+}[RouteName];
+
+/** A route record whose name (and its children's) is one of RouteName. */
+type NamedRoute = RouteRecordRaw & { name?: RouteName; children?: NamedRoute[] };
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -30,14 +47,14 @@ declare module 'vue-router' {
   }
 }
 
-export const routes: RouteRecordRaw[] = [
+export const routes: NamedRoute[] = [
   { path: '/sign-in', name: 'sign-in', component: () => import('@/pages/SignInPage.vue'), meta: { public: true, title: 'Sign in' } },
   { path: '/', name: 'home', component: () => import('@/pages/HomeRedirect.vue') },
   {
     path: '/c/:cellarId',
     component: () => import('@/layouts/MainLayout.vue'),
     children: [
-      { path: '', redirect: { name: 'today' } },
+      { path: '', redirect: { name: 'today' satisfies RouteName } },
       { path: 'today', name: 'today', component: () => import('@/pages/TodayPage.vue'), meta: { title: 'Today' } },
       { path: 'scan', name: 'scan', component: () => import('@/pages/ScanPage.vue'), meta: { title: 'Scan' } },
       { path: 'batches', name: 'batches', component: () => import('@/pages/BatchesPage.vue'), meta: { title: 'Batches' } },

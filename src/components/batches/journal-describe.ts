@@ -1,4 +1,4 @@
-import type { JournalEntry, JournalPayload } from '@shared/schemas/journal';
+import type { JournalPayload } from '@shared/schemas/journal';
 import { TASTING_SCORE_MAX } from '@shared/schemas/journal';
 
 /** The formatting functions the descriptions need (useFormat provides them). */
@@ -18,20 +18,9 @@ export interface EntryDescription {
 type Vessels = { vesselName: string; volumeL: number }[];
 const vesselList = (vessels: Vessels, f: JournalFormat) => vessels.map((v) => `${v.vesselName} (${f.volume(v.volumeL)})`).join(', ');
 
-/** The entry's payload with its recorded corrections applied, oldest correction first. */
-export function effectivePayload(entry: JournalEntry, journal: JournalEntry[]): JournalPayload {
-  const corrections = journal
-    .filter((e) => e.amendsEntryId === entry.id && e.payload.kind === 'amendment')
-    .sort((a, b) => a.recordedAt.localeCompare(b.recordedAt));
-  return corrections.reduce<JournalPayload>(
-    (payload, c) => ({ ...payload, ...(c.payload.kind === 'amendment' ? c.payload.changes : {}) }) as JournalPayload,
-    entry.payload,
-  );
-}
-
 /**
  * An icon, a title and a few plain lines for one journal entry.
- * @param payload - the entry's payload (with corrections applied)
+ * @param payload - the entry's payload with its corrections applied (effectivePayload, shared/domain/journal.ts)
  */
 export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryDescription {
   switch (payload.kind) {

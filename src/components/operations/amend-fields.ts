@@ -1,7 +1,12 @@
 import { z } from 'zod';
+import { CORRECTABLE_FIELDS, correctableFieldNames, isCorrectable, type CorrectableKind } from '@shared/domain/journal';
 import type { JournalKind } from '@shared/schemas/journal';
-import { additionRequestSchema, noteRequestSchema, readingRequestSchema, tasteRequestSchema } from '@shared/schemas/journal';
 
+/**
+ * How the correction form shows each correctable field. Which fields may be corrected, and
+ * the rules they must meet, live in shared/domain/journal.ts (the server checks the same);
+ * only labels and input types are the client's.
+ */
 export type AmendFieldType = 'number' | 'temperature' | 'text' | 'longtext' | 'date';
 export interface AmendField {
   key: string;
@@ -9,46 +14,43 @@ export interface AmendField {
   type: AmendFieldType;
 }
 
+/** A label and input for every correctable field of every kind: a field without one does not compile. */
+type AmendPresentation = {
+  [K in CorrectableKind]: Record<keyof (typeof CORRECTABLE_FIELDS)[K], Omit<AmendField, 'key'>>;
+};
+
+const PRESENTATION: AmendPresentation = {
+  reading: {
+    sg: { label: 'Gravity (as read)', type: 'number' },
+    temperatureC: { label: 'Sample temperature', type: 'temperature' },
+    ph: { label: 'pH', type: 'number' },
+  },
+  addition: {
+    name: { label: 'What was added', type: 'text' },
+    amount: { label: 'Amount', type: 'number' },
+    unit: { label: 'Unit', type: 'text' },
+    removeOn: { label: 'Take out on', type: 'date' },
+  },
+  tasted: {
+    appearance: { label: 'Appearance', type: 'longtext' },
+    aroma: { label: 'Aroma', type: 'longtext' },
+    flavour: { label: 'Flavour and finish', type: 'longtext' },
+    score: { label: 'Score', type: 'number' },
+  },
+  note: { text: { label: 'Note', type: 'longtext' } },
+};
+
+/** The fields a correction of an entry of `kind` may change, in the shared order ([] when none). */
+export function amendableFields(kind: JournalKind): AmendField[] {
+  if (!isCorrectable(kind)) return [];
+  const shown: Record<string, Omit<AmendField, 'key'>> = PRESENTATION[kind];
+  return correctableFieldNames(kind).map((key) => ({ key, ...shown[key] }));
+}
+
 /**
- * The fields a later correction may change, per entry kind (the server accepts these and no
- * others; volumes and vessel moves are corrected by a new operation instead).
+ * The rules for the `changes` of a correction of `kind`: each correctable field's shared rule,
+ * each optional. "At least one change" is left to the dialog, which says so under the reason.
  */
-export const AMENDABLE_FIELDS: Partial<Record<JournalKind, AmendField[]>> = {
-  reading: [
-    { key: 'sg', label: 'Gravity (as read)', type: 'number' },
-    { key: 'temperatureC', label: 'Sample temperature', type: 'temperature' },
-    { key: 'ph', label: 'pH', type: 'number' },
-  ],
-  addition: [
-    { key: 'name', label: 'What was added', type: 'text' },
-    { key: 'amount', label: 'Amount', type: 'number' },
-    { key: 'unit', label: 'Unit', type: 'text' },
-    { key: 'removeOn', label: 'Take out on', type: 'date' },
-  ],
-  tasted: [
-    { key: 'appearance', label: 'Appearance', type: 'longtext' },
-    { key: 'aroma', label: 'Aroma', type: 'longtext' },
-    { key: 'flavour', label: 'Flavour and finish', type: 'longtext' },
-    { key: 'score', label: 'Score', type: 'number' },
-  ],
-  note: [{ key: 'text', label: 'Note', type: 'longtext' }],
-};
-
-/** The request schema whose rules a corrected field must still meet. */
-const RULES: Partial<Record<JournalKind, z.ZodObject>> = {
-  reading: readingRequestSchema,
-  addition: additionRequestSchema,
-  tasted: tasteRequestSchema,
-  note: noteRequestSchema,
-};
-
-export const isAmendable = (kind: JournalKind): boolean => kind in AMENDABLE_FIELDS;
-
-/** The schema for the `changes` of an amendment of this kind: the kind's own field rules, each optional. */
-export function changesSchemaFor(kind: JournalKind) {
-  const rules = RULES[kind];
-  const keys = (AMENDABLE_FIELDS[kind] ?? []).map((f) => f.key);
-  if (!rules) return z.object({});
-  const shape = Object.fromEntries(keys.map((k) => [k, (rules.shape as Record<string, z.ZodType>)[k].optional()]));
-  return z.object(shape);
+export function changesSchemaFor(kind: JournalKind | undefined) {
+  return kind && isCorrectable(kind) ? z.object(CORRECTABLE_FIELDS[kind]).partial() : z.object({});
 }

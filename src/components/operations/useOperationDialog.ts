@@ -1,0 +1,151 @@
+import { onBeforeMount, reactive, ref, watch } from 'vue';
+import { useQuasar } from 'quasar';
+import type { ZodType } from 'zod';
+import { ApiError } from '@/api/http';
+import { fieldKey, friendlyMessage, isSanitiseRefusal } from './operation-errors';
+import { useCellarId } from './useDialogBatch';
+
+/** Field messages keyed by the request's field path (`sg`, `to.0.volumeL`, `override.reason`). */
+export type FieldMessages = Record<string, string | undefined>;
+
+/**
+ * The events every operation dialog emits: its v-model, and `done` once the server has recorded
+ * it. Method syntax, so the dialog's own `emit` (from defineEmits) is accepted as it is.
+ */
+interface OperationDialogEvents<Result> {
+  emit(event: 'update:modelValue', open: boolean): void;
+  emit(event: 'done', result: Result): void;
+}
+
+export interface OperationDialogOptions<Request, Result> {
+  /** The dialog's props: its v-model opens and closes it. */
+  props: { readonly modelValue: boolean };
+  // Result is inferred from `send` alone; the dialog's emit must accept it.
+  emit: OperationDialogEvents<NoInfer<Result>>['emit'];
+  /** The shared zod schema the request must pass before anything is sent (a function when it depends on props). */
+  schema: ZodType<Request> | (() => ZodType<Request>);
+  /** The form as the request the schema checks; undefined while there is nothing to send (the batch is not loaded). */
+  request: () => unknown;
+  /** Rules the schema cannot know (room left in a vessel…): messages by field, or nothing when the request may go. */
+  check?: (request: Request) => FieldMessages | null | undefined;
+  /** Sends the checked request. */
+  send: (cellarId: string, request: Request) => Promise<Result>;
+  /** What the success notification says. */
+  success: string | ((result: Result, request: Request) => string);
+  /** The warnings shown after it (default: the result's `warnings`, if it has any). */
+  warnings?: (result: Result) => string[];
+  /** Resets the form and loads what the dialog needs; runs at every opening and on Reload. */
+  onOpen?: () => Promise<void> | void;
+  /** Runs after every request with its failure (null when it succeeded). */
+  afterSend?: (failure: ApiError | null) => void;
+  /**
+   * The dialog fills vessels: a refusal for want of sanitising turns `overriding` on, and from
+   * then on the request carries `override: { reason }` with the reason the user gives.
+   */
+  sanitiseOverride?: boolean;
+}
+
+const WARNING_TIMEOUT_MS = 9000;
+
+/** The result's own warnings, for results that carry them (OperationResult); none otherwise. */
+function warningsOf(result: unknown): string[] {
+  const warnings = (result as { warnings?: unknown } | null)?.warnings;
+  return Array.isArray(warnings) ? warnings.filter((w): w is string => typeof w === 'string') : [];
+}
+
+/**
+ * What every operation dialog does around its own form: a fresh start at each opening, the
+ * shared schema's check before sending, the request in flight, the server's field messages
+ * and failure, the success message and each warning, then `done` and closing.
+ * A dialog mounted open runs `onOpen` once its setup has finished, before its first render.
+ */
+export function useOperationDialog<Request, Result>(options: OperationDialogOptions<Request, Result>) {
+  const $q = useQuasar();
+  const cellarId = useCellarId();
+  const errors = reactive<FieldMessages>({});
+  const busy = ref(false);
+  const failure = ref<ApiError | null>(null);
+  const overriding = ref(false);
+  const overrideReason = ref('');
+
+  function reset(): void {
+    for (const key of Object.keys(errors)) delete errors[key];
+    failure.value = null;
+  }
+
+  /** Checks a request with its schema; fills `errors` and answers null when it does not pass. */
+  function validate(value: unknown): Request | null {
+    reset();
+    const schema = typeof options.schema === 'function' ? options.schema() : options.schema;
+    const parsed = schema.safeParse(value);
+    if (parsed.success) return parsed.data;
+    for (const issue of parsed.error.issues) errors[fieldKey(issue.path.join('.'))] ??= friendlyMessage(issue);
+    return null;
+  }
+
+  /** Runs the request; an ApiError becomes field messages plus `failure`. */
+  async function send(request: Request): Promise<{ ok: true; result: Result } | { ok: false }> {
+    busy.value = true;
+    failure.value = null;
+    try {
+      return { ok: true, result: await options.send(cellarId.value, request) };
+    } catch (err) {
+      const apiError =
+        err instanceof ApiError ? err : new ApiError(0, 'unexpected', 'The answer from the server was not understood. Reload and try again.');
+      for (const issue of apiError.issues) errors[fieldKey(issue.path)] = issue.message;
+      failure.value = apiError;
+      return { ok: false };
+    } finally {
+      busy.value = false;
+    }
+  }
+
+  /** Tells the user it was recorded, and each warning the server added, long enough to read. */
+  function notifyDone(message: string, warnings: string[]): void {
+    $q.notify({ type: 'positive', message });
+    for (const warning of warnings) {
+      $q.notify({ type: 'warning', message: warning, timeout: WARNING_TIMEOUT_MS, actions: [{ label: 'OK', color: 'dark' }] });
+    }
+  }
+
+  async function open(): Promise<void> {
+    reset();
+    if (options.sanitiseOverride) {
+      overriding.value = false;
+      overrideReason.value = '';
+    }
+    await options.onOpen?.();
+  }
+
+  async function submit(): Promise<void> {
+    const form = options.request();
+    if (form === undefined) return;
+    const value = options.sanitiseOverride ? { ...(form as object), override: overriding.value ? { reason: overrideReason.value } : undefined } : form;
+    const request = validate(value);
+    if (request === null) return;
+    const refusal = options.check?.(request);
+    if (refusal) {
+      Object.assign(errors, refusal);
+      return;
+    }
+    const sent = await send(request);
+    if (options.sanitiseOverride && isSanitiseRefusal(failure.value)) overriding.value = true;
+    options.afterSend?.(failure.value);
+    if (!sent.ok) return;
+    const message = typeof options.success === 'function' ? options.success(sent.result, request) : options.success;
+    notifyDone(message, options.warnings ? options.warnings(sent.result) : warningsOf(sent.result));
+    options.emit('done', sent.result);
+    options.emit('update:modelValue', false);
+  }
+
+  // Every opening starts from a fresh form and freshly loaded data.
+  watch(
+    () => options.props.modelValue,
+    (isOpen) => isOpen && void open(),
+  );
+  onBeforeMount(() => {
+    if (options.props.modelValue) void open();
+  });
+
+  return { cellarId, errors, busy, failure, overriding, overrideReason, open, submit };
+}

@@ -1,0 +1,71 @@
+import type { SessionUser } from '@shared/schemas/auth';
+import { batchDetailSchema, type BatchDetail, type OperationResult } from '@shared/schemas/batch-detail';
+import { batchPageSchema, type BatchSummary } from '@shared/schemas/batches';
+import type { Role } from '@shared/roles';
+import type { FakeApi } from './fake-api';
+
+/** Invented ids and names for the client tests (no real household). */
+export const CELLAR_ID = '5d1c7a52-3f0e-4b6a-9a51-1f2e3d4c5b6a';
+export const BATCH_ID = '8a0b6c1d-2e3f-4a5b-8c7d-9e0f1a2b3c4d';
+export const VESSEL_ID = 'c3d4e5f6-a7b8-4c9d-8e0f-1a2b3c4d5e6f';
+export const ENTRY_ID = 'e1f2a3b4-c5d6-4e7f-8a9b-0c1d2e3f4a5b';
+
+export function sessionUser(role: Role = 'hand'): SessionUser {
+  return {
+    id: '0f1e2d3c-4b5a-4968-8776-655443322110',
+    email: 'wren@quillfield.test',
+    displayName: 'Wren Quillfield',
+    cellars: [{ cellarId: CELLAR_ID, cellarName: 'Quillfield cellar', role }],
+  };
+}
+
+/** The fake server knows this user as signed in (the router's guard asks first). */
+export function signIn(api: FakeApi, role: Role = 'hand'): void {
+  api.on('GET', '/api/auth/me', { body: sessionUser(role) });
+}
+
+/** A batch in one 23 L carboy, checked against the shared schema so the fixture cannot drift. */
+export function batchDetail(overrides: Partial<BatchDetail> = {}): BatchDetail {
+  return batchDetailSchema.parse({
+    id: BATCH_ID,
+    name: 'Hedgerow melomel',
+    kind: 'melomel',
+    stage: 'primary',
+    startedOn: '2026-02-01',
+    og: 1.11,
+    volumeL: 21,
+    vesselCount: 1,
+    lastReading: null,
+    lastRackedAt: null,
+    needsRacking: false,
+    yeastToleranceAbv: 14,
+    ingredients: [],
+    yeastName: 'Wine yeast',
+    plannedVolumeL: 21,
+    targetSweetness: null,
+    notes: '',
+    vessels: [
+      { id: VESSEL_ID, code: 'K7M2P9QX', name: 'Carboy 3', capacityL: 23, volumeL: 21, filledAt: '2026-02-01T10:00:00Z', place: null, version: 4 },
+    ],
+    readings: [],
+    journal: [],
+    parents: [],
+    children: [],
+    lots: [],
+    additionsIn: [],
+    ...overrides,
+  });
+}
+
+export function operationResult(warnings: string[] = [], batch: BatchDetail = batchDetail()): OperationResult {
+  return { batch, entryId: ENTRY_ID, warnings };
+}
+
+export function batchSummary(overrides: Partial<BatchSummary> = {}): BatchSummary {
+  const { id, name, kind, stage, startedOn, og, volumeL, vesselCount, lastReading, lastRackedAt, needsRacking, yeastToleranceAbv } = batchDetail();
+  return { id, name, kind, stage, startedOn, og, volumeL, vesselCount, lastReading, lastRackedAt, needsRacking, yeastToleranceAbv, ...overrides };
+}
+
+export function batchPage(items: BatchSummary[] = [batchSummary()]) {
+  return batchPageSchema.parse({ items, total: items.length, page: 1, pageSize: 25 });
+}
