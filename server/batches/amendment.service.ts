@@ -1,6 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import type { z } from 'zod';
-import { ZodError } from 'zod';
+import { type z, ZodError } from 'zod';
 import { correctionSchema, isCorrectable, VOLUME_KINDS } from '../../shared/domain/journal';
 import type { OperationResult } from '../../shared/schemas/batch-detail';
 import type { amendRequestSchema, JournalKind, JournalPayload } from '../../shared/schemas/journal';

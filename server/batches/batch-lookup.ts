@@ -1,7 +1,8 @@
 import type { EntityManager } from 'typeorm';
+import { localDate } from '../core/local-date';
 import { Batch } from '../entities/batch.entity';
 import { Vessel } from '../entities/vessel.entity';
-import { ConflictError, NotFoundError } from '../http/errors';
+import { BadRequestError, ConflictError, NotFoundError } from '../http/errors';
 
 const NO_SUCH_BATCH = 'No such batch in this cellar.';
 
@@ -35,4 +36,22 @@ export async function requireInVessels(tx: EntityManager, batch: Batch): Promise
     throw new ConflictError(`${batch.name} is not in any vessel any more (it was bottled, blended or moved on), so this cannot be done to it.`);
   }
   return vessels;
+}
+
+/** Clocks on phones drift; a few minutes ahead is not "the future". */
+const CLOCK_SLACK_MS = 5 * 60 * 1000;
+
+/**
+ * When an operation happened: the given moment, or now. Refuses moments in the future and
+ * (for an existing batch) before the batch was started.
+ * @param at - ISO date-time from the request, if any
+ */
+export function occurredAt(at: string | undefined, now: Date, batch?: Batch, timeZone = 'UTC'): Date {
+  if (!at) return now;
+  const moment = new Date(at);
+  if (moment.getTime() > now.getTime() + CLOCK_SLACK_MS) throw new BadRequestError('body.at: that moment is in the future.');
+  if (batch && localDate(moment, timeZone) < batch.startedOn) {
+    throw new BadRequestError(`body.at: that is before ${batch.name} was started (${batch.startedOn}).`);
+  }
+  return moment;
 }

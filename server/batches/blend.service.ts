@@ -14,11 +14,18 @@ import { ConflictError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
 import { lockVessels, vesselChangedError } from '../vessels/vessel-lock';
 import { operationResult } from './batch-detail';
-import { lockBatch } from './batch-lookup';
+import { lockBatch, occurredAt } from './batch-lookup';
 import { blendedOg, blendYeastName } from './blend-rules';
-import { checkFillTarget, glassCautions, headspaceWarnings, markEmptied, markFilled, vesselVolume } from './fill-rules';
-import { refuseMoreThanSources, refuseSourceAsTarget } from './fill-rules';
-import { occurredAt } from './occurred-at';
+import {
+  checkFillTarget,
+  glassCautions,
+  headspaceWarnings,
+  markEmptied,
+  markFilled,
+  refuseMoreThanSources,
+  refuseSourceAsTarget,
+  vesselVolume,
+} from './fill-rules';
 
 export type BlendRequest = Omit<z.output<typeof blendRequestSchema>, 'kind'> & { kind: BatchKind };
 

@@ -7,9 +7,8 @@ import type { Cellar } from '../entities/cellar.entity';
 import type { Vessel } from '../entities/vessel.entity';
 import { lockVessels, type VesselRef } from '../vessels/vessel-lock';
 import { operationResult } from './batch-detail';
-import { findBatch, lockBatch, requireInVessels } from './batch-lookup';
+import { findBatch, lockBatch, occurredAt, requireInVessels } from './batch-lookup';
 import { requireHolds } from './fill-rules';
-import { occurredAt } from './occurred-at';
 
 /** What an operation on one batch works with, all read inside its transaction. */
 export interface BatchScope {

@@ -9,10 +9,18 @@ import { Vessel } from '../entities/vessel.entity';
 import { appendEntry } from '../journal/journal';
 import { lockVessels } from '../vessels/vessel-lock';
 import { operationResult } from './batch-detail';
-import { findBatch, lockBatch, requireInVessels } from './batch-lookup';
-import { checkFillTarget, glassCautions, headspaceWarnings, markEmptied, markFilled, requireHolds, vesselVolume } from './fill-rules';
-import { refuseMoreThanSources, refuseSourceAsTarget } from './fill-rules';
-import { occurredAt } from './occurred-at';
+import { findBatch, lockBatch, occurredAt, requireInVessels } from './batch-lookup';
+import {
+  checkFillTarget,
+  glassCautions,
+  headspaceWarnings,
+  markEmptied,
+  markFilled,
+  refuseMoreThanSources,
+  refuseSourceAsTarget,
+  requireHolds,
+  vesselVolume,
+} from './fill-rules';
 
 type RackRequest = z.output<typeof rackRequestSchema>;
 

@@ -13,9 +13,8 @@ import { ConflictError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
 import { lockVessels } from '../vessels/vessel-lock';
 import { operationResult } from './batch-detail';
-import { findBatch, lockBatch, requireInVessels } from './batch-lookup';
+import { findBatch, lockBatch, occurredAt, requireInVessels } from './batch-lookup';
 import { requireHolds, vesselVolume } from './fill-rules';
-import { occurredAt } from './occurred-at';
 
 export type SplitRequest = Omit<z.output<typeof splitRequestSchema>, 'kind'> & { kind: BatchKind };
 

@@ -1,7 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import type { z } from 'zod';
-import type { BottleLot, lotListQuerySchema } from '../../shared/schemas/bottles';
-import { departureSchema } from '../../shared/schemas/bottles';
+import { type BottleLot, departureSchema, type lotListQuerySchema } from '../../shared/schemas/bottles';
 import { requireRole, type Actor } from '../core/actor';
 import { casesOfLots, loadLot, lotDto, lotsWithBatch, records } from './lot-queries';
 
