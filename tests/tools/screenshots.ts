@@ -1,5 +1,5 @@
 /**
- * Takes phone (390 px) and desktop (1280 px) screenshots of screens of a running app.
+ * Takes small-phone (360 px), phone (390 px) and desktop (1280 px) screenshots of screens of a running app.
  * Usage: tsx tests/tools/screenshots.ts [baseUrl] [outDir] [path ...]
  * Signs in as the demo Keeper first. Paths may use {cellar} for the first cellar's id.
  */
@@ -15,7 +15,7 @@ const { context, close } = await launchBrowser();
 fs.mkdirSync(outDir, { recursive: true });
 try {
   const page = await context.newPage();
-  for (const [label, width, height] of [['phone', 390, 844], ['desktop', 1280, 860]] as const) {
+  for (const [label, width, height] of [['phone-360', 360, 760], ['phone', 390, 844], ['desktop', 1280, 860]] as const) {
     await page.setViewportSize({ width, height });
     await page.goto(`${baseUrl}/sign-in`);
     await page.screenshot({ path: path.join(outDir, `sign-in-${label}.png`) });
