@@ -7,22 +7,36 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Pool } from 'pg';
 import type { DataSource } from 'typeorm';
+import { accountMailRoutes } from './accounts/account-mail.routes';
 import { authRoutes } from './accounts/auth.routes';
+import { invitationRoutes } from './accounts/invitations.routes';
 import { createPassport } from './accounts/passport';
+import { archiveRoutes } from './archive/archive.routes';
+import { auditRoutes } from './audit/audit.routes';
 import { batchRoutes } from './batches/batches.routes';
 import { bottlingRoutes } from './bottles/bottling.routes';
 import { caseRoutes } from './bottles/cases.routes';
 import { lotRoutes } from './bottles/lots.routes';
+import { calendarFeedRoutes, calendarFileRoutes } from './calendar/calendar.routes';
 import { cellarListRoutes, cellarSettingsRoutes } from './cellars/cellars.routes';
 import { memberRoutes } from './cellars/members.routes';
+import { exportRoutes } from './exchange/exports.routes';
+import { importRoutes } from './exchange/imports.routes';
 import { cellarAccess, type CellarAccessPolicy } from './http/cellar-access';
+import { crossSiteGuard } from './http/cross-site-guard';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { healthRoutes } from './http/health.routes';
 import { requireSignIn } from './http/require-sign-in';
 import { labelRoutes } from './labels/labels.routes';
+import { mailOptionsWithDefaults, type MailAppOptions } from './mail/mail-app-options';
+import { mailSettingsRoutes } from './mail/mail-settings.routes';
+import { mailRoutes } from './mail/mail.routes';
+import { unsubscribeRoutes } from './mail/unsubscribe.routes';
 import { photoRoutes } from './photos/photos.routes';
+import { batchPlanRoutes, planRoutes } from './plans/plans.routes';
 import { rackRoutes } from './places/racks.routes';
 import { scanRoutes } from './scan/scan.routes';
+import { taskRoutes } from './tasks/tasks.routes';
 import { todayRoutes } from './today/today.routes';
 import { vesselRoutes } from './vessels/vessels.routes';
 
@@ -35,12 +49,16 @@ export interface AppOptions {
   trustProxy?: number;
   /** Built client to serve (dist/); omitted in API-only tests. */
   clientDir?: string;
-  /** Failed sign-ins allowed per address and e-mail in 15 minutes. */
+  /** Failed sign-ins allowed per e-mail address in 15 minutes. */
   signInAttempts?: number;
+  /** Failed sign-ins allowed per client address in 15 minutes, over all e-mails. */
+  signInAttemptsPerClient?: number;
   /** Base URL printed into QR labels (config PUBLIC_URL). */
   publicUrl?: string;
   /** Label code look-ups (/s, /api/scan, /api/cards) allowed per address per minute. */
   scanLookupsPerMinute?: number;
+  /** Mail: the local mailbox for the Outgoing mail page, rate limits (server/mail/mail-app-options.ts). */
+  mail?: MailAppOptions;
 }
 
 export const SESSION_COOKIE = 'cellarwright.sid';
@@ -65,6 +83,8 @@ export function createApp(options: AppOptions): express.Express {
       strictTransportSecurity: options.cookieSecure,
     }),
   );
+  // Before any body is read: a page on another site never changes anything here.
+  app.use(crossSiteGuard(options.publicUrl));
   app.use(express.json({ limit: '1mb' }));
 
   const PgStore = connectPgSimple(session);
@@ -92,7 +112,16 @@ export function createApp(options: AppOptions): express.Express {
 
   const api = express.Router();
   api.use('/health', healthRoutes(ds));
-  api.use('/auth', authRoutes(ds, passport, { signInAttempts: options.signInAttempts ?? 10 }));
+  api.use(
+    '/auth',
+    authRoutes(ds, passport, { signInAttempts: options.signInAttempts ?? 10, signInAttemptsPerClient: options.signInAttemptsPerClient ?? 50 }),
+  );
+  // Invitations from the invited person's side, and password reset (server/accounts/).
+  const mail = mailOptionsWithDefaults(options.mail);
+  const mailLinkBase = options.publicUrl ?? 'http://127.0.0.1:8460';
+  api.use('/auth', accountMailRoutes(ds, { publicUrl: mailLinkBase, limits: mail.limits, resetAnswerMs: mail.resetAnswerMs }));
+  // The one-click unsubscribe link of reminder mails: signed, no sign-in.
+  api.use('/mail', unsubscribeRoutes(ds, options.sessionSecret));
   // Everything about cellars needs a session; unknown /api paths still answer 404.
   api.use('/cellars', requireSignIn);
   api.use('/cellars', cellarListRoutes(ds));
@@ -102,6 +131,10 @@ export function createApp(options: AppOptions): express.Express {
     api.use(`/cellars/:cellarId/${resource}`, cellarAccess(ds, policy), router);
   inCellar('settings', cellarSettingsRoutes(ds), { write: 'keeper' });
   inCellar('members', memberRoutes(ds), { write: 'keeper' });
+  inCellar('invitations', invitationRoutes(ds, { publicUrl: mailLinkBase, limits: mail.limits }), { write: 'keeper' });
+  inCellar('mail', mailRoutes(ds, { mailbox: mail.mailbox, showAccountMail: mail.showAccountMail }), { write: 'keeper' });
+  // Each member, Guests too, changes only their own e-mail reminders.
+  inCellar('mail-settings', mailSettingsRoutes(ds), { write: 'guest' });
   inCellar('today', todayRoutes(ds), { write: 'hand' });
   inCellar('racks', rackRoutes(ds), { write: 'hand' });
   inCellar('vessels', vesselRoutes(ds), { write: 'hand' });
@@ -109,15 +142,26 @@ export function createApp(options: AppOptions): express.Express {
   const photos = photoRoutes(ds);
   inCellar('batches/:batchId/bottlings', bottlingRoutes(ds), { write: 'hand' });
   inCellar('batches/:batchId/photos', photos.upload, { write: 'hand' });
+  inCellar('batches/:batchId/plan', batchPlanRoutes(ds), { write: 'keeper' });
   inCellar('batches', batchRoutes(ds), { write: 'hand' });
+  inCellar('plans', planRoutes(ds), { write: 'keeper' });
+  inCellar('tasks', taskRoutes(ds), { write: 'hand' });
+  // A member's own calendar feed: anyone may turn theirs on or off.
+  inCellar('calendar-feed', calendarFeedRoutes(ds), { write: 'guest' });
   inCellar('lots', lotRoutes(ds), { write: 'hand' });
   inCellar('cases', caseRoutes(ds), { write: 'hand' });
   inCellar('photos', photos.serve, { write: 'hand' });
   inCellar('labels', labelRoutes(ds, { publicUrl: options.publicUrl ?? 'http://127.0.0.1:8460' }), { write: 'hand' });
+  inCellar('exports', exportRoutes(ds), { write: 'keeper' });
+  inCellar('audit', auditRoutes(ds), { write: 'keeper' });
+  inCellar('imports', importRoutes(ds), { write: 'keeper' });
+  inCellar('archive', archiveRoutes(ds), { write: 'keeper' });
 
   app.use('/api', api);
   // Printed label URLs (outside /api because phones open them directly) and code look-ups.
   app.use(scanRoutes(ds, { lookupsPerMinute: options.scanLookupsPerMinute }));
+  // Calendar feeds (outside /api: calendar apps fetch them without a session).
+  app.use(calendarFileRoutes(ds, { publicUrl: mailLinkBase }));
   app.use('/api', apiNotFound);
 
   if (options.clientDir && fs.existsSync(path.join(options.clientDir, 'index.html'))) {

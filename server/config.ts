@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { z } from 'zod';
+import { mailEnvShape, mailSettingsFrom, type MailSettings } from './mail/mail-config';
 
 const booleanFromEnv = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])
@@ -25,6 +26,8 @@ const envSchema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   /** Seed the demo cellar into an empty database on start. */
   SEED_DEMO: booleanFromEnv.default(true),
+  /** SMTP, sender and outbox worker (server/mail/mail-config.ts); no SMTP means the local mailbox. */
+  ...mailEnvShape,
 });
 
 export type AppConfig = Readonly<{
@@ -39,6 +42,7 @@ export type AppConfig = Readonly<{
   trustProxy: number;
   publicUrl: string;
   seedDemo: boolean;
+  mail: MailSettings;
 }>;
 
 /**
@@ -68,5 +72,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: e.TRUST_PROXY,
     publicUrl: (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/$/, ''),
     seedDemo: e.SEED_DEMO,
+    mail: mailSettingsFrom(e),
   });
 }

@@ -7,7 +7,9 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { createDataSource } from './db/data-source';
 import { ensureDatabase } from './db/ensure-database';
-import { PostgresMissingError, startLocalPostgres, type LocalPostgres } from './db/local-postgres';
+import { PostgresMissingError, StartupError, startLocalPostgres, type LocalPostgres } from './db/local-postgres';
+import { requireFreePort } from './core/port-check';
+import { startMail } from './mail/mail-setup';
 import { printDemoSignIns, seedDemoIfEmpty } from './seed/demo';
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -25,10 +27,12 @@ function sessionSecretFor(dataDir: string, configured: string | undefined): stri
 
 async function main(): Promise<void> {
   const config = loadConfig();
+  // Before the database starts: a taken app port should not leave a cluster behind.
+  await requireFreePort(config.host, config.port);
   let localPg: LocalPostgres | undefined;
   let databaseUrl = config.databaseUrl;
   if (!databaseUrl) {
-    localPg = startLocalPostgres({ dataDir: path.join(config.dataDir, 'pg'), port: config.pgPort });
+    localPg = startLocalPostgres({ dataDir: path.join(config.dataDir, 'pg'), port: config.pgPort, adoptRunning: true });
     await ensureDatabase(localPg.adminUrl, 'cellarwright');
     databaseUrl = localPg.urlFor('cellarwright');
   }
@@ -40,16 +44,27 @@ async function main(): Promise<void> {
   const ran = await dataSource.runMigrations({ transaction: 'each' });
   if (ran.length) console.log(`Applied ${ran.length} migration(s): ${ran.map((m) => m.name).join(', ')}`);
   const seeded = config.seedDemo ? await seedDemoIfEmpty(dataSource) : false;
+  // The configured SMTP server, or the local mailbox on loopback; and the outbox worker.
+  const sessionSecret = sessionSecretFor(config.dataDir, config.sessionSecret);
+  const mail = await startMail(dataSource, config.mail, { publicUrl: config.publicUrl, secret: sessionSecret });
 
   const app = createApp({
     dataSource,
-    sessionSecret: sessionSecretFor(config.dataDir, config.sessionSecret),
+    sessionSecret,
     cookieSecure: config.cookieSecure,
     trustProxy: config.trustProxy,
     clientDir: path.join(projectRoot, 'dist'),
     publicUrl: config.publicUrl,
+    mail: { mailbox: mail.mailbox, showAccountMail: config.env !== 'production' },
   });
-  const server = app.listen(config.port, config.host, () => {
+  const server = app.listen(config.port, config.host, (err?: Error) => {
+    // Taken between the check and now (another program was quicker): one line, then stop.
+    if (err) {
+      console.error(
+        `Port ${config.port} on ${config.host} could not be used (${(err as NodeJS.ErrnoException).code ?? err.message}). Set PORT to a free port.`,
+      );
+      process.exit(1);
+    }
     console.log(`\nCellarwright is running at http://${config.host}:${config.port}/`);
     if (config.seedDemo) printDemoSignIns(seeded);
   });
@@ -61,8 +76,9 @@ async function main(): Promise<void> {
     console.log(`\n${signal}: stopping…`);
     server.close();
     server.closeAllConnections();
-    dataSource
-      .destroy()
+    mail
+      .stop()
+      .then(() => dataSource.destroy())
       .catch(() => undefined)
       .finally(() => {
         stopDatabase();
@@ -74,7 +90,7 @@ async function main(): Promise<void> {
 }
 
 main().catch((err: unknown) => {
-  if (err instanceof PostgresMissingError || (err instanceof Error && err.message.startsWith('Invalid environment'))) {
+  if (err instanceof PostgresMissingError || err instanceof StartupError || (err instanceof Error && err.message.startsWith('Invalid environment'))) {
     console.error(err.message);
   } else {
     console.error('Cellarwright could not start:', err);

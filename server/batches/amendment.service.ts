@@ -7,13 +7,15 @@ import { requireRole, type Actor } from '../core/actor';
 import { ConflictError, NotFoundError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
 import { correctedEntry } from '../journal/journal-queries';
+import { localDate } from '../core/local-date';
 import { correctedGravity } from './corrected-gravity';
 import { onBatch } from './on-batch';
+import { applyStartCorrection } from './start-correction';
 
 type AmendRequest = z.output<typeof amendRequestSchema>;
 
 const NOT_AMENDABLE = 'Volumes and vessel moves cannot be amended; record a new operation instead.';
-const ONLY_SOME = 'Only readings, tastings, notes and additions can be amended; record a new entry instead.';
+const ONLY_SOME = 'Only the start, readings, tastings, notes and additions can be amended; record a new entry instead.';
 
 /** Validates `changes` against the entry's kind (400 naming the field, like any bad input). */
 function parseChanges(kind: JournalKind, changes: Record<string, unknown>): Record<string, unknown> {
@@ -31,13 +33,14 @@ function parseChanges(kind: JournalKind, changes: Record<string, unknown>): Reco
 }
 
 /**
- * Corrects a reading, tasting, note or addition by appending an 'amendment' entry (the
+ * Corrects the start (its figures: the batch's record follows), a reading, tasting, note or
+ * addition by appending an 'amendment' entry (the
  * original stays in the journal). A corrected reading gets its temperature-corrected gravity
  * recomputed and recorded with the changes.
  */
 export function amendEntry(actor: Actor, tx: EntityManager, batchId: string, entryId: string, request: AmendRequest): Promise<OperationResult> {
   requireRole(actor, 'hand');
-  return onBatch(actor, tx, batchId, { needsVessels: false }, async ({ tx, batch }) => {
+  return onBatch(actor, tx, batchId, { needsVessels: false }, async ({ tx, batch, cellar, now }) => {
     const original = await correctedEntry(tx, batch.id, entryId);
     if (!original) throw new NotFoundError(`No such entry in the journal of ${batch.name}.`);
     const changes = parseChanges(original.kind, request.changes);
@@ -45,6 +48,7 @@ export function amendEntry(actor: Actor, tx: EntityManager, batchId: string, ent
       const merged = { ...original.payload, ...changes } as Extract<JournalPayload, { kind: 'reading' }>;
       changes.correctedSg = correctedGravity(merged.sg, merged.temperatureC, merged.calibrationC);
     }
+    if (original.kind === 'started') await applyStartCorrection(tx, batch, changes, localDate(now, cellar.timeZone));
     const entry = await appendEntry(tx, actor, batch.id, { kind: 'amendment', reason: request.reason, changes }, { amendsEntryId: original.id });
     return { entryId: entry.id };
   });

@@ -7,7 +7,7 @@ import { Batch } from '../entities/batch.entity';
 import { BottleCaseRow } from '../entities/bottle-case.entity';
 import { BottleDeparture } from '../entities/bottle-departure.entity';
 import { BottleLotRow } from '../entities/bottle-lot.entity';
-import { ConflictError, NotFoundError } from '../http/errors';
+import { BadRequestError, ConflictError, NotFoundError } from '../http/errors';
 import { refreshStageAfterDeparture } from '../journal/journal';
 import { placesOf, placeThing } from '../places/placement';
 import { caseDto } from './lot-queries';
@@ -74,6 +74,29 @@ export async function getCase(actor: Actor, tx: EntityManager, caseId: string): 
   };
 }
 
+/** A few minutes' grace for a phone whose clock runs a little ahead. */
+const CLOCK_GRACE_MS = 5 * 60 * 1000;
+
+/**
+ * When bottles left: the moment the request gives (checked: not in the future, not before
+ * the lot was bottled), or now.
+ */
+function departureMoment(at: string | undefined, bottledOn: string): Date {
+  if (at === undefined) return new Date();
+  const moment = new Date(at);
+  if (moment.getTime() > Date.now() + CLOCK_GRACE_MS) {
+    throw new BadRequestError('body.at: that is in the future; record bottles when they have left.', {
+      issues: [{ path: 'body.at', message: 'cannot be in the future' }],
+    });
+  }
+  if (moment.toISOString().slice(0, 10) < bottledOn) {
+    throw new BadRequestError(`body.at: that is before the lot was bottled (${bottledOn}).`, {
+      issues: [{ path: 'body.at', message: `not before the bottling day (${bottledOn})` }],
+    });
+  }
+  return moment;
+}
+
 /**
  * Takes bottles out of a case (drunk, given, sold, sent to a competition, broken). The case row
  * is locked, so two people drawing from the same case at once are served one after the other
@@ -91,6 +114,8 @@ export async function drawDown(actor: Actor, tx: EntityManager, caseId: string, 
       currentVersion: row.version,
     });
   if (request.count > row.bottlesLeft) throw tooMany();
+  const lot = await tx.getRepository(BottleLotRow).findOneByOrFail({ id: row.lotId });
+  const occurredAt = departureMoment(request.at, lot.bottledOn);
 
   const departures = tx.getRepository(BottleDeparture);
   await departures.save(
@@ -101,6 +126,7 @@ export async function drawDown(actor: Actor, tx: EntityManager, caseId: string, 
       reason: request.reason,
       note: request.note,
       authorId: actor.userId,
+      occurredAt,
     }),
   );
   try {
@@ -110,7 +136,6 @@ export async function drawDown(actor: Actor, tx: EntityManager, caseId: string, 
     if (error instanceof QueryFailedError && (error.driverError as { code?: string }).code === '23514') throw tooMany();
     throw error;
   }
-  const lot = await tx.getRepository(BottleLotRow).findOneByOrFail({ id: row.lotId });
   await refreshStageAfterDeparture(tx, lot.batchId);
   return toDto(tx, await findCase(tx, actor.cellarId, caseId, false));
 }

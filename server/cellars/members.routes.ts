@@ -1,28 +1,23 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import { z } from 'zod';
-import { memberAddSchema, memberRoleSchema } from '../../shared/schemas/cellars';
+import { memberRoleSchema } from '../../shared/schemas/cellars';
 import { uuidSchema } from '../../shared/schemas/common';
 import { cellarHandler } from '../http/handle';
-import { addMember, changeMember, listMembers } from './members.service';
+import { changeMember, listMembers } from './members.service';
 
 const memberParams = z.object({ memberId: uuidSchema });
 
-/** /api/cellars/:cellarId/members — everyone sees who is in the cellar; Keepers manage it. */
+/**
+ * /api/cellars/:cellarId/members — everyone sees who is in the cellar; Keepers manage it.
+ * People join only by accepting an invitation (accounts/invitations.routes.ts).
+ */
 export function memberRoutes(ds: DataSource): Router {
   const router = Router({ mergeParams: true });
   const cellar = cellarHandler(ds);
   router.get(
     '/',
     cellar({}, (_input, actor, tx) => listMembers(actor, tx)),
-  );
-  router.post(
-    '/',
-    cellar({ body: memberAddSchema }, async ({ body }, actor, tx, req, res) => {
-      const member = await addMember(actor, tx, body.email, body.role);
-      res.status(201);
-      return member;
-    }),
   );
   router.patch(
     '/:memberId',

@@ -3,7 +3,6 @@ import type { Role } from '../../shared/roles';
 import type { Member } from '../../shared/schemas/cellars';
 import { requireRole, type Actor } from '../core/actor';
 import { Membership } from '../entities/membership.entity';
-import { User } from '../entities/user.entity';
 import { ConflictError, NotFoundError } from '../http/errors';
 
 export async function listMembers(actor: Actor, tx: EntityManager): Promise<Member[]> {
@@ -21,19 +20,6 @@ export async function listMembers(actor: Actor, tx: EntityManager): Promise<Memb
     role: m.role,
     since: m.createdAt.toISOString(),
   }));
-}
-
-/** Adds an existing account to the cellar. */
-export async function addMember(actor: Actor, tx: EntityManager, email: string, role: Role): Promise<Member> {
-  requireRole(actor, 'keeper');
-  const user = await tx.getRepository(User).findOneBy({ email });
-  if (!user) throw new NotFoundError(`No account uses ${email}. Ask them to create one first.`);
-  const repo = tx.getRepository(Membership);
-  if (await repo.existsBy({ cellarId: actor.cellarId, userId: user.id })) {
-    throw new ConflictError(`${user.displayName} is already a member of this cellar.`);
-  }
-  const saved = await repo.save(repo.create({ cellarId: actor.cellarId, userId: user.id, role }));
-  return { id: saved.id, userId: user.id, email: user.email, displayName: user.displayName, role, since: saved.createdAt.toISOString() };
 }
 
 /**

@@ -19,12 +19,24 @@ export interface LocalPostgresOptions {
   port: number;
   /** Prefix for log lines. */
   log?: (line: string) => void;
+  /**
+   * A cluster of this data folder found running was left by a run that died: take it over
+   * and stop it at exit. The app sets this (its port check has shown no other run is alive);
+   * tools that run beside the app (create-keeper) leave it off and never stop its database.
+   */
+  adoptRunning?: boolean;
 }
 
 const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
 const SERVER_USER = 'postgres';
 
 export class PostgresMissingError extends Error {}
+
+/** A start-up problem with a one-line explanation that is all the user needs to see. */
+export class StartupError extends Error {}
+
+/** The log lines PostgreSQL writes when its port is taken. */
+const PORT_TAKEN = /could not bind .* address|Address already in use|could not create any TCP\/IP sockets/i;
 
 /** Finds initdb/pg_ctl: $PG_BIN, Debian's /usr/lib/postgresql/<newest>/bin, then PATH. */
 export function findPostgresBin(): string | undefined {
@@ -120,7 +132,9 @@ function runningPort(dataDir: string): number | undefined {
 
 /**
  * Starts (creating on first use) a PostgreSQL cluster listening on 127.0.0.1 only,
- * with password authentication. Reuses a cluster that is already running.
+ * with password authentication. A cluster of the same data folder that is already running is
+ * used; with `adoptRunning` it is also stopped at exit (one left behind by a crash).
+ * @throws StartupError when the port is taken by something else
  */
 export function startLocalPostgres(options: LocalPostgresOptions): LocalPostgres {
   const log = options.log ?? ((line: string) => console.log(line));
@@ -153,8 +167,9 @@ export function startLocalPostgres(options: LocalPostgresOptions): LocalPostgres
   const password = readOrCreatePassword(passwordFile);
 
   const running = spawnSync(isRoot ? 'runuser' : pgCtl, isRoot ? ['-u', SERVER_USER, '--', pgCtl, 'status', '-D', dataDir] : ['status', '-D', dataDir], { cwd: '/' });
-  let startedHere = false;
   let port = options.port;
+  /** Whether stop() stops the cluster: always one started here, an adopted one too. */
+  let ownsCluster = true;
   if (running.status !== 0) {
     // No Unix socket: everything goes over loopback TCP, so long project paths do not matter.
     const serverOptions = `-p ${options.port} -c listen_addresses=127.0.0.1 -c unix_socket_directories=''`;
@@ -162,13 +177,24 @@ export function startLocalPostgres(options: LocalPostgresOptions): LocalPostgres
       runAsServerUser(pgCtl, ['-D', dataDir, '-o', serverOptions, '-l', logFile, '-w', '-t', '60', 'start']);
     } catch (err) {
       const tail = fs.existsSync(logFile) ? fs.readFileSync(logFile, 'utf8').split('\n').slice(-8).join('\n') : '';
+      if (PORT_TAKEN.test(tail)) {
+        throw new StartupError(
+          `Port ${options.port} on 127.0.0.1 is already in use, so the database cannot start there. Set PG_PORT to a free port (for example PG_PORT=${options.port + 1} npm start).`,
+        );
+      }
       throw new Error(`PostgreSQL did not start on 127.0.0.1:${options.port}.\n${tail}`, { cause: err });
     }
-    startedHere = true;
     log(`PostgreSQL listening on 127.0.0.1:${options.port}`);
   } else {
+    // Our own cluster is already running: an earlier run ended without stopping it (a crash,
+    // kill -9). Adopt it, so this run stops it at exit like one it started.
     port = runningPort(dataDir) ?? port;
-    log(`Reusing the PostgreSQL cluster already running from ${dataDir} on port ${port}`);
+    ownsCluster = options.adoptRunning === true;
+    log(
+      ownsCluster
+        ? `Found this app's PostgreSQL cluster still running on port ${port} (an earlier run did not stop it); using it, and stopping it at exit.`
+        : `Using the PostgreSQL cluster already running from ${dataDir} on port ${port}.`,
+    );
   }
 
   let stopped = false;
@@ -178,7 +204,7 @@ export function startLocalPostgres(options: LocalPostgresOptions): LocalPostgres
     adminUrl: urlFor('postgres'),
     urlFor,
     stop() {
-      if (stopped || !startedHere) return;
+      if (stopped || !ownsCluster) return;
       stopped = true;
       try {
         runAsServerUser(pgCtl, ['-D', dataDir, '-m', 'fast', '-w', 'stop']);

@@ -15,6 +15,14 @@ import { JournalEntryRow } from '../journal/journal-entry.entity';
 import { CreateAccounts1796170000000 } from './migrations/1796170000000-CreateAccounts';
 import { CreateCellarRecords1796170100000 } from './migrations/1796170100000-CreateCellarRecords';
 import { AddBottleCards1796170200000 } from './migrations/1796170200000-AddBottleCards';
+import { CreatePlansAndTasks1796170300000 } from './migrations/1796170300000-CreatePlansAndTasks';
+import { CreateMailOutbox1796170400000 } from './migrations/1796170400000-CreateMailOutbox';
+import { CreateInvitationsAndPasswordResets1796170410000 } from './migrations/1796170410000-CreateInvitationsAndPasswordResets';
+import { CreateMemberMailSettings1796170420000 } from './migrations/1796170420000-CreateMemberMailSettings';
+import { AddSharedRateLimits1796170500000 } from './migrations/1796170500000-AddSharedRateLimits';
+import { AddReadableDate1796170510000 } from './migrations/1796170510000-AddReadableDate';
+import { AddPhotoDisplayCopy1796170520000 } from './migrations/1796170520000-AddPhotoDisplayCopy';
+import { CreateAuditAndImportKeys1796170600000 } from './migrations/1796170600000-CreateAuditAndImportKeys';
 
 /** Every entity, listed by hand (glob paths do not work under Vitest). */
 export const entities = [
@@ -35,4 +43,16 @@ export const entities = [
 ];
 
 /** Every migration, oldest first. Add a new one at the end. */
-export const migrations = [CreateAccounts1796170000000, CreateCellarRecords1796170100000, AddBottleCards1796170200000];
+export const migrations = [
+  CreateAccounts1796170000000,
+  CreateCellarRecords1796170100000,
+  AddBottleCards1796170200000,
+  CreatePlansAndTasks1796170300000,
+  CreateMailOutbox1796170400000,
+  CreateInvitationsAndPasswordResets1796170410000,
+  CreateMemberMailSettings1796170420000,
+  AddSharedRateLimits1796170500000,
+  AddReadableDate1796170510000,
+  AddPhotoDisplayCopy1796170520000,
+  CreateAuditAndImportKeys1796170600000,
+];

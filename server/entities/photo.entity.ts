@@ -27,6 +27,10 @@ export class Photo {
   @Column({ type: 'bytea', select: false })
   thumbnail: Buffer;
 
+  /** At most DISPLAY_MAX_PX on the long side; null for photos stored before display copies. */
+  @Column({ type: 'bytea', select: false, nullable: true })
+  display: Buffer | null;
+
   @Column({ name: 'uploaded_by', type: 'uuid', nullable: true })
   uploadedBy: string | null;
 

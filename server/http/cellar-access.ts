@@ -26,7 +26,7 @@ export function neededRole(method: string, policy: CellarAccessPolicy): Role {
  * where they are mounted, never per route.
  */
 export function cellarAccess(ds: DataSource, policy: CellarAccessPolicy = { write: 'hand' }): RequestHandler {
-  return async (req, _res, next) => {
+  const gate: RequestHandler = async (req, _res, next) => {
     if (!req.user) throw new UnauthorizedError();
     const id = uuidSchema.safeParse(req.params.cellarId);
     if (!id.success) throw new BadRequestError('params.cellarId: must be an id (UUID)');
@@ -43,4 +43,9 @@ export function cellarAccess(ds: DataSource, policy: CellarAccessPolicy = { writ
     req.cellar = { id: membership.cellarId, role: membership.role };
     next();
   };
+  // The policy stays readable on the gate, for the route sweep that walks the app.
+  return Object.assign(gate, { [CELLAR_POLICY]: policy });
 }
+
+/** Where `cellarAccess` leaves its policy on the gate it returns. */
+export const CELLAR_POLICY = Symbol('cellarPolicy');

@@ -1,10 +1,20 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { QueryFailedError } from 'typeorm';
 import { ZodError } from 'zod';
 import type { ApiErrorBody } from '../../shared/schemas/common';
+import { databaseErrorAnswer } from './database-errors';
 import { AppError } from './errors';
 
-type PgError = { code?: string; constraint?: string; detail?: string };
+/** Plain words for the body parser's refusals (it names its own internals otherwise). */
+function bodyParserAnswer(type: string, status: number): ApiErrorBody {
+  if (type === 'charset.unsupported') {
+    return { error: 'unsupported_charset', message: 'Send the request body as UTF-8 (charset=utf-8).' };
+  }
+  if (type === 'encoding.unsupported') {
+    return { error: 'unsupported_encoding', message: 'The request body is compressed in a way we do not accept; send it uncompressed or as gzip.' };
+  }
+  if (status === 415) return { error: 'unsupported_media_type', message: 'The request body is of a type we do not accept.' };
+  return { error: 'bad_request', message: 'The request body could not be read (it is cut off or not what its headers say).' };
+}
 
 function zodIssues(error: ZodError, prefix: string) {
   return error.issues.map((issue) => ({
@@ -40,18 +50,18 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (type === 'entity.too.large') {
     return send(413, { error: 'too_large', message: 'The request body is too large.' });
   }
-  if (err instanceof QueryFailedError) {
-    const pg = err.driverError as PgError;
-    if (pg.code === '23505') {
-      return send(409, { error: 'conflict', message: 'That already exists.', constraint: pg.constraint });
-    }
-    if (pg.code === '23503') {
-      return send(409, { error: 'conflict', message: 'That refers to something that does not exist (any more).' });
-    }
-    if (pg.code === '22P02' || pg.code === '22003') {
-      return send(400, { error: 'invalid_input', message: 'A value has the wrong form or is out of range.' });
-    }
+  // Other request-body errors (charset, content encoding, a broken gzip stream) carry their
+  // 4xx status and are marked safe to answer (`expose`), even when they have no `type`.
+  const { status, expose } = err as { status?: unknown; expose?: unknown };
+  if ((typeof type === 'string' || expose === true) && typeof status === 'number' && status >= 400 && status < 500) {
+    return send(status, bodyParserAnswer(type ?? '', status));
   }
+  // The router could not decode a path parameter (say %ED%A0%80, bytes that are not UTF-8).
+  if (err instanceof URIError) {
+    return send(400, { error: 'bad_request', message: 'The address contains characters that cannot be read.' });
+  }
+  const database = databaseErrorAnswer(err);
+  if (database) return send(database.status, { error: database.code, message: database.message });
   console.error(`[error] ${req.method} ${req.originalUrl}`, err);
   return send(500, { error: 'internal', message: 'Something went wrong on our side. Please try again.' });
 };

@@ -4,6 +4,7 @@ import { z, ZodError, type ZodType } from 'zod';
 import type { Actor } from '../core/actor';
 import { inTransaction } from '../core/unit-of-work';
 import { actorFrom } from './actor-from-request';
+import { guardInput } from './input-guard';
 
 type Schemas = { params?: ZodType; query?: ZodType; body?: ZodType };
 type Parsed<S extends Schemas> = {
@@ -33,7 +34,8 @@ export function handle<S extends Schemas>(
   schemas: S,
   fn: (input: Parsed<S>, req: Request, res: Response) => Promise<unknown> | unknown,
 ): RequestHandler {
-  return async (req: Request, res: Response) => {
+  const handler: RequestHandler = async (req: Request, res: Response) => {
+    guardInput({ params: req.params, query: req.query, body: req.body });
     const input = {
       params: parsePart(schemas.params, req.params, 'params'),
       query: parsePart(schemas.query, req.query, 'query'),
@@ -43,7 +45,12 @@ export function handle<S extends Schemas>(
     if (result !== undefined && !res.headersSent) res.json(result);
     else if (!res.headersSent) res.status(204).end();
   };
+  // The route's schemas stay readable on its handler, for the test sweeps that walk the routes.
+  return Object.assign(handler, { [ROUTE_SCHEMAS]: schemas });
 }
+
+/** Where `handle` leaves a route's schemas on its handler. */
+export const ROUTE_SCHEMAS = Symbol('routeSchemas');
 
 const READ_METHODS = new Set(['GET', 'HEAD']);
 

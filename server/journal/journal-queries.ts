@@ -133,15 +133,58 @@ export interface AdditionDueOut {
   removeOn: string;
 }
 
-/** Additions still in whose take-out date falls on or before `until` (YYYY-MM-DD), soonest first. */
+/**
+ * Additions still in whose take-out date (as last amended) falls on or before `until`
+ * (YYYY-MM-DD), soonest first. A stored date that cannot be read is left out here (the
+ * batch's journal shows it as unreadable) rather than failing the whole list.
+ */
 export async function additionsDueOut(tx: EntityManager, cellarId: string, until: string): Promise<AdditionDueOut[]> {
   return tx.query(
-    `SELECT e.batch_id AS "batchId", b.name AS "batchName", e.id AS "entryId", e.payload->>'name' AS name, e.payload->>'removeOn' AS "removeOn"
-       FROM journal_entries e JOIN batches b ON b.id = e.batch_id
-      WHERE e.cellar_id = $1 AND e.kind = 'addition' AND e.payload->>'removeOn' IS NOT NULL
-        AND (e.payload->>'removeOn')::date <= $2::date
-        AND NOT EXISTS (SELECT 1 FROM journal_entries r WHERE r.batch_id = e.batch_id AND r.kind = 'removed' AND r.payload->>'additionEntryId' = e.id::text)
-      ORDER BY (e.payload->>'removeOn')::date`,
+    `SELECT a.batch_id AS "batchId", b.name AS "batchName", a.id AS "entryId", a.name, a.remove_on::text AS "removeOn"
+       FROM (SELECT e.batch_id, e.id, e.payload->>'name' AS name,
+                    cw_readable_date(CASE WHEN fix.changes ? 'removeOn' THEN fix.changes->>'removeOn' ELSE e.payload->>'removeOn' END) AS remove_on
+               FROM journal_entries e
+               LEFT JOIN LATERAL (
+                 SELECT am.payload->'changes' AS changes FROM journal_entries am
+                  WHERE am.amends_entry_id = e.id AND am.kind = 'amendment' AND am.payload->'changes' ? 'removeOn'
+                  ORDER BY am.recorded_at DESC, am.id DESC LIMIT 1) fix ON true
+              WHERE e.cellar_id = $1 AND e.kind = 'addition'
+                AND NOT EXISTS (SELECT 1 FROM journal_entries r WHERE r.batch_id = e.batch_id AND r.kind = 'removed' AND r.payload->>'additionEntryId' = e.id::text)
+            ) a JOIN batches b ON b.id = a.batch_id
+      WHERE a.remove_on <= $2::date
+      ORDER BY a.remove_on, a.id`,
     [cellarId, until],
   );
+}
+
+/** A journal entry that anchors or completes a planned task, corrections applied. */
+export interface TaskEventRow {
+  id: string;
+  batchId: string;
+  occurredAt: Date;
+  /** The local date it happened on, in the time zone asked for (YYYY-MM-DD). */
+  localOn: string;
+  payload: JournalPayload;
+}
+
+/** Kinds of entry the rule engine reads (shared/domain/plans): its anchors and completions. */
+const TASK_EVENT_KINDS = ['reading', 'racked', 'addition', 'removed', 'topped-up', 'tasted', 'bottled'];
+
+/**
+ * The entries of these batches that plans count from or that complete tasks, with their
+ * corrections applied, in the journal's order: one statement however many batches.
+ */
+export async function taskEvents(tx: EntityManager, batchIds: string[], timeZone: string): Promise<TaskEventRow[]> {
+  if (batchIds.length === 0) return [];
+  // The local date comes from PostgreSQL's time zone rules: one conversion per row, no clock arithmetic here.
+  const records: (JournalRecord & { batchId: string; kind: JournalKind; occurredAt: Date; localOn: string })[] = await tx.query(
+    `SELECT ${ROW_COLUMNS}, to_char(j.occurred_at AT TIME ZONE $3, 'YYYY-MM-DD') AS "localOn" FROM journal_entries j
+      WHERE j.batch_id = ANY($1) AND (j.kind = ANY($2) OR (j.kind = 'amendment' AND j.amends_entry_id IS NOT NULL))`,
+    [batchIds, TASK_EVENT_KINDS, timeZone],
+  );
+  const amended = amendedPayloads(records);
+  return records
+    .filter((r) => r.kind !== 'amendment')
+    .sort(compareEntries)
+    .map((r) => ({ id: r.id, batchId: r.batchId, occurredAt: r.occurredAt, localOn: r.localOn, payload: amended.get(r.id)! }));
 }

@@ -49,6 +49,35 @@ export async function appendEntry(
 }
 
 /**
+ * Appends many entries to one batch's journal, in the order given (an import): one lock, one
+ * INSERT and one update of the batch's caches for them all, the caches moved on entry by entry
+ * exactly as `appendEntry` does. Calling `appendEntry` thousands of times in one transaction
+ * would update the batch row once per entry, and PostgreSQL cannot prune those row versions
+ * before the commit, so each update walks all the earlier ones.
+ */
+export async function appendEntries(
+  tx: EntityManager,
+  actor: Actor,
+  batchId: string,
+  entries: { payload: JournalPayload; occurredAt: Date }[],
+): Promise<number> {
+  if (!entries.length) return 0;
+  let caches = await lockCaches(tx, batchId);
+  const [{ recordedAt }]: { recordedAt: Date }[] = await tx.query(
+    `INSERT INTO journal_entries (cellar_id, batch_id, kind, payload, occurred_at, author_id)
+     SELECT $1, $2, e.payload->>'kind', e.payload, e.occurred_at, $3
+       FROM jsonb_to_recordset($4::jsonb) AS e(payload jsonb, occurred_at timestamptz)
+     RETURNING recorded_at AS "recordedAt"`,
+    [actor.cellarId, batchId, actor.userId, JSON.stringify(entries.map((e) => ({ payload: e.payload, occurred_at: e.occurredAt.toISOString() })))],
+  );
+  for (const { payload, occurredAt } of entries) {
+    caches = await advanceCaches(tx, batchId, caches, payload, { id: '', occurredAt, recordedAt }, null);
+  }
+  await saveCaches(tx, batchId, caches);
+  return entries.length;
+}
+
+/**
  * Brings the stage up to date after bottles left a batch's cases (no journal entry: the
  * departure is recorded on the case): a bottled batch whose last bottle went is finished.
  */

@@ -1,5 +1,5 @@
-import sharp from 'sharp';
-import { UnsupportedMediaError } from '../http/errors';
+import sharp, { type Sharp } from 'sharp';
+import { AppError, UnsupportedMediaError } from '../http/errors';
 
 /** Largest upload, in bytes (the photos table checks the same). */
 export const PHOTO_MAX_BYTES = 10 * 1024 * 1024;
@@ -7,8 +7,13 @@ export const PHOTO_MAX_BYTES = 10 * 1024 * 1024;
 export const THUMBNAIL_MAX_PX = 320;
 /** Thumbnails are always WebP. */
 export const THUMBNAIL_MIME = 'image/webp';
-// A phone photo is at most ~200 megapixels; more is a decompression bomb, not a photo.
-const MAX_INPUT_PIXELS = 200_000_000;
+/** Longest side of the display copy, in pixels: sharp on any phone or desktop screen. */
+export const DISPLAY_MAX_PX = 2560;
+/**
+ * Largest picture we decode, in pixels. Phone cameras give 12–50 megapixels and usually save
+ * a 12 MP frame; a 14000 × 14000 PNG of 190 kB is a decompression bomb, not a photo.
+ */
+export const MAX_INPUT_PIXELS = 40_000_000;
 
 const MIME_BY_FORMAT = { jpeg: 'image/jpeg', png: 'image/png', webp: 'image/webp' } as const;
 export type PhotoMime = (typeof MIME_BY_FORMAT)[keyof typeof MIME_BY_FORMAT];
@@ -20,6 +25,8 @@ export interface CheckedPhoto {
   mimeType: PhotoMime;
   /** Upright, re-encoded without EXIF: a phone photo's GPS position must not leave the cellar's members' hands. */
   stored: Buffer;
+  /** Upright, at most DISPLAY_MAX_PX on the long side, in the original's format. */
+  display: Buffer;
   thumbnail: Buffer;
 }
 
@@ -33,10 +40,21 @@ export interface CheckedPhoto {
 export async function checkPhoto(bytes: Buffer): Promise<CheckedPhoto> {
   const options = { limitInputPixels: MAX_INPUT_PIXELS, failOn: 'error' as const };
   let format: string | undefined;
+  let pixels = 0;
   try {
-    format = (await sharp(bytes, options).metadata()).format;
+    // Only the header is read here, so no pixel limit yet: the dimensions decide below.
+    const meta = await sharp(bytes, { limitInputPixels: false }).metadata();
+    format = meta.format;
+    pixels = (meta.width ?? 0) * (meta.height ?? 0);
   } catch {
     throw new UnsupportedMediaError(NOT_A_PHOTO);
+  }
+  if (pixels > MAX_INPUT_PIXELS) {
+    throw new AppError(
+      413,
+      'too_large',
+      `That picture is ${Math.round(pixels / 1_000_000)} megapixels; send one of at most ${MAX_INPUT_PIXELS / 1_000_000} megapixels (a phone photo is smaller).`,
+    );
   }
   if (format !== 'jpeg' && format !== 'png' && format !== 'webp') {
     throw new UnsupportedMediaError(`That file is a ${format ?? 'kind of'} image; send a JPEG, PNG or WebP picture.`);
@@ -49,10 +67,13 @@ export async function checkPhoto(bytes: Buffer): Promise<CheckedPhoto> {
       .toBuffer();
     // sharp writes no metadata unless asked, so this drops EXIF (location, device) too.
     const upright = sharp(bytes, options).autoOrient();
-    const stored = await (
-      format === 'jpeg' ? upright.jpeg({ quality: 90 }) : format === 'png' ? upright.png() : upright.webp({ quality: 90 })
-    ).toBuffer();
-    return { mimeType: MIME_BY_FORMAT[format], stored, thumbnail };
+    const encode = (image: Sharp) =>
+      (format === 'jpeg' ? image.jpeg({ quality: 90 }) : format === 'png' ? image.png() : image.webp({ quality: 90 })).toBuffer();
+    const stored = await encode(upright);
+    const display = await encode(
+      sharp(bytes, options).autoOrient().resize({ width: DISPLAY_MAX_PX, height: DISPLAY_MAX_PX, fit: 'inside', withoutEnlargement: true }),
+    );
+    return { mimeType: MIME_BY_FORMAT[format], stored, display, thumbnail };
   } catch {
     throw new UnsupportedMediaError('That picture is damaged or too large to read. Try another copy of it.');
   }

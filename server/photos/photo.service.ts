@@ -6,6 +6,9 @@ import { NotFoundError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
 import { THUMBNAIL_MIME, type CheckedPhoto } from './photo-check';
 
+/** The original as stored, the display copy (long side ≤ 2,560 px) or the thumbnail. */
+export type PhotoSize = 'full' | 'display' | 'thumbnail';
+
 /** Image bytes ready to send. */
 export interface PhotoImage {
   mimeType: string;
@@ -38,6 +41,7 @@ export async function addPhoto(
       byteSize: checked.stored.length,
       data: checked.stored,
       thumbnail: checked.thumbnail,
+      display: checked.display,
       uploadedBy: actor.userId,
     }),
   );
@@ -46,16 +50,17 @@ export async function addPhoto(
 }
 
 /**
- * A photo of this cellar, full size or as its thumbnail.
+ * A photo of this cellar: full size, its display copy or its thumbnail.
  * @throws NotFoundError when the photo is not in this cellar
  */
-export async function readPhoto(actor: Actor, tx: EntityManager, photoId: string, size: 'full' | 'thumbnail'): Promise<PhotoImage> {
+export async function readPhoto(actor: Actor, tx: EntityManager, photoId: string, size: PhotoSize): Promise<PhotoImage> {
   requireRole(actor, 'guest');
-  const column = size === 'full' ? 'data' : 'thumbnail';
+  // Photos stored before display copies existed are shown from their original.
+  const column = size === 'full' ? 'data' : size === 'display' ? 'COALESCE(display, data)' : 'thumbnail';
   const [row]: { mime_type: string; bytes: Buffer }[] = await tx.query(
     `SELECT mime_type, ${column} AS bytes FROM photos WHERE id = $1 AND cellar_id = $2`,
     [photoId, actor.cellarId],
   );
   if (!row) throw new NotFoundError('No such photo in this cellar.');
-  return { mimeType: size === 'full' ? row.mime_type : THUMBNAIL_MIME, bytes: row.bytes };
+  return { mimeType: size === 'thumbnail' ? THUMBNAIL_MIME : row.mime_type, bytes: row.bytes };
 }

@@ -9,7 +9,7 @@ import { actorFrom } from '../http/actor-from-request';
 import { AppError, BadRequestError, UnsupportedMediaError } from '../http/errors';
 import { cellarHandler, handle } from '../http/handle';
 import { checkPhoto, PHOTO_MAX_BYTES } from './photo-check';
-import { addPhoto, readPhoto } from './photo.service';
+import { addPhoto, readPhoto, type PhotoSize } from './photo.service';
 
 const batchParams = z.object({ batchId: uuidSchema });
 const photoParams = z.object({ photoId: uuidSchema });
@@ -73,7 +73,7 @@ export function photoRoutes(ds: DataSource): { upload: Router; serve: Router } {
   );
 
   const serve = Router({ mergeParams: true });
-  const sendImage = (size: 'full' | 'thumbnail') =>
+  const sendImage = (size: PhotoSize) =>
     cellar({ params: photoParams }, async ({ params }, actor, tx, req, res) => {
       const image = await readPhoto(actor, tx, params.photoId, size);
       res.set({
@@ -84,6 +84,7 @@ export function photoRoutes(ds: DataSource): { upload: Router; serve: Router } {
       res.end(image.bytes);
     });
   serve.get('/:photoId', sendImage('full'));
+  serve.get('/:photoId/display', sendImage('display'));
   serve.get('/:photoId/thumbnail', sendImage('thumbnail'));
   return { upload, serve };
 }

@@ -1,10 +1,10 @@
-import { Router, type Request, type Response } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import type { DataSource } from 'typeorm';
 import { scanCodeParamsSchema } from '../../shared/schemas/scan';
 import { inTransaction } from '../core/unit-of-work';
 import { handle } from '../http/handle';
 import { requireSignIn } from '../http/require-sign-in';
+import { sharedLimit } from '../http/shared-rate-limit';
 import { bottleCard, resolveCode, scanDestination } from './code-lookup';
 
 export interface ScanRouteOptions {
@@ -36,13 +36,17 @@ function tooMany(req: Request, res: Response): void {
  */
 export function scanRoutes(ds: DataSource, options: ScanRouteOptions = {}): Router {
   const router = Router();
-  const limiter = rateLimit({
-    windowMs: 60_000,
-    limit: options.lookupsPerMinute ?? 60,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: tooMany,
-  });
+  // Counted in PostgreSQL, so several instances share one count per address.
+  const lookups = sharedLimit(ds, { name: 'scan-lookups', points: options.lookupsPerMinute ?? 60, windowSeconds: 60 });
+  const limiter: RequestHandler = async (req, res, next) => {
+    const wait = await lookups.take(req.ip ?? 'unknown');
+    if (wait > 0) {
+      res.set('Retry-After', String(wait));
+      tooMany(req, res);
+      return;
+    }
+    next();
+  };
   router.get(
     '/s/:code',
     limiter,

@@ -6,6 +6,7 @@ import { Cellar } from '../entities/cellar.entity';
 import { Membership } from '../entities/membership.entity';
 import { User } from '../entities/user.entity';
 import { seedDemoRecords } from './demo-cellar';
+import { seedDemoTasks } from './demo-tasks';
 
 /** Shared by every demo account; printed at start-up. Demo only. */
 export const DEMO_PASSWORD = 'demo-cellar-2026';
@@ -53,10 +54,9 @@ export async function seedDemoIfEmpty(ds: DataSource): Promise<boolean> {
     await addMember(tx, home, maren, 'keeper');
     await addMember(tx, home, tobias, 'hand');
     await addMember(tx, home, ilse, 'guest');
-    await seedDemoRecords(tx, {
-      keeper: memberActor(home.id, maren.id, 'keeper'),
-      hand: memberActor(home.id, tobias.id, 'hand'),
-    });
+    const homePeople = { keeper: memberActor(home.id, maren.id, 'keeper'), hand: memberActor(home.id, tobias.id, 'hand') };
+    await seedDemoRecords(tx, homePeople);
+    await seedDemoTasks(tx, homePeople);
 
     const club = await cellars.save(
       cellars.create({

@@ -2,6 +2,8 @@ import type { EntityManager } from 'typeorm';
 import { bestVesselForRacking, headspace, rackingLoss, type RackingStage } from '../../shared/calc';
 import { sanitisedUntil } from '../../shared/domain/vessel-state';
 import type { CleaningState, Vessel as VesselDto, VesselDetail, VesselKind } from '../../shared/schemas/vessels';
+import { recordAudit } from '../audit/audit-log';
+import { moveSummary } from '../audit/move-summary';
 import { requireRole, type Actor } from '../core/actor';
 import { Cellar } from '../entities/cellar.entity';
 import { Vessel } from '../entities/vessel.entity';
@@ -11,6 +13,7 @@ import { newLabelCode } from '../labels/label-codes';
 import { placeThing } from '../places/placement';
 import { cleaningRefusal } from './cleaning-rules';
 import { lockVessels } from './vessel-lock';
+import { requireFreeVesselName } from './vessel-names';
 import { findVesselPage, findVesselRow, rackingCandidates, toVesselDtos } from './vessel-queries';
 
 const NO_SUCH_VESSEL = 'No such vessel in this cellar.';
@@ -57,6 +60,7 @@ export interface VesselCreateInput {
 export async function createVessel(actor: Actor, tx: EntityManager, input: VesselCreateInput): Promise<VesselDto> {
   requireRole(actor, 'hand');
   const { cellarId } = actor;
+  await requireFreeVesselName(tx, cellarId, input.name);
   const repo = tx.getRepository(Vessel);
   const saved = await repo.save(
     repo.create({
@@ -71,6 +75,7 @@ export async function createVessel(actor: Actor, tx: EntityManager, input: Vesse
       notes: input.notes,
     }),
   );
+  await recordAudit(tx, actor, { kind: 'vessel', action: 'added', vesselId: saved.id, summary: `Added ${saved.name} (${saved.capacityL} L)` });
   return vesselDto(tx, cellarId, saved.id);
 }
 
@@ -139,6 +144,7 @@ export async function updateVessel(actor: Actor, tx: EntityManager, vesselId: st
   requireRole(actor, 'guest');
   const { expectedVersion, ...changes } = input;
   const vessel = await lockOne(tx, cellarId, vesselId, expectedVersion);
+  if (changes.name !== undefined) await requireFreeVesselName(tx, cellarId, changes.name, vessel.id);
   if (changes.capacityL !== undefined && vessel.volumeL !== null && changes.capacityL < vessel.volumeL) {
     throw new ConflictError(
       `${vessel.name} holds ${vessel.volumeL} L now, so its capacity cannot be less than that. Rack some out first, or check the number.`,
@@ -147,6 +153,12 @@ export async function updateVessel(actor: Actor, tx: EntityManager, vesselId: st
   }
   const defined = Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined));
   await tx.getRepository(Vessel).save(Object.assign(vessel, defined));
+  await recordAudit(tx, actor, {
+    kind: 'vessel',
+    action: 'edited',
+    vesselId,
+    summary: `Changed ${Object.keys(defined).join(', ')} of ${vessel.name}`,
+  });
   return vesselDto(tx, cellarId, vesselId);
 }
 
@@ -166,6 +178,7 @@ export async function setCleaning(
   vessel.cleaningState = input.state;
   if (input.state === 'sanitised') vessel.sanitisedAt = now;
   await tx.getRepository(Vessel).save(vessel);
+  await recordAudit(tx, actor, { kind: 'vessel', action: `marked ${input.state}`, vesselId, summary: `Marked ${vessel.name} ${input.state}` });
   return vesselDto(tx, cellarId, vesselId);
 }
 
@@ -185,10 +198,12 @@ export async function setRetired(
     }
     vessel.retiredAt = new Date();
     await tx.getRepository(Vessel).save(vessel);
+    await recordAudit(tx, actor, { kind: 'vessel', action: 'retired', vesselId, summary: `Retired ${vessel.name}` });
   } else if (!input.retired && vessel.retiredAt) {
     vessel.retiredAt = null;
     vessel.cleaningState = 'dirty';
     await tx.getRepository(Vessel).save(vessel);
+    await recordAudit(tx, actor, { kind: 'vessel', action: 'back in use', vesselId, summary: `Brought ${vessel.name} back into use` });
   }
   return vesselDto(tx, cellarId, vesselId);
 }
@@ -202,9 +217,15 @@ export async function moveVessel(
 ): Promise<VesselDto> {
   requireRole(actor, 'hand');
   const { cellarId } = actor;
-  await lockOne(tx, cellarId, vesselId, input.expectedVersion);
+  const vessel = await lockOne(tx, cellarId, vesselId, input.expectedVersion);
   await placeThing(tx, cellarId, { vesselId }, input.to);
   await bumpVersion(tx, vesselId);
+  await recordAudit(tx, actor, {
+    kind: 'vessel',
+    action: input.to ? 'moved' : 'taken off its shelf',
+    vesselId,
+    summary: await moveSummary(tx, vessel.name, input.to),
+  });
   return vesselDto(tx, cellarId, vesselId);
 }
 
@@ -217,4 +238,5 @@ export async function deleteVessel(actor: Actor, tx: EntityManager, vesselId: st
     throw new ConflictError(`${vessel.name} holds a batch. Rack or bottle it out before deleting the vessel.`, { vesselId: vessel.id });
   }
   await tx.getRepository(Vessel).delete({ id: vessel.id });
+  await recordAudit(tx, actor, { kind: 'vessel', action: 'deleted', vesselId, summary: `Deleted ${vessel.name} (${vessel.code})` });
 }

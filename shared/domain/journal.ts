@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { gravitySchema } from '../schemas/batches';
+import { batchStartSchema, gravitySchema } from '../schemas/batches';
 import {
   additionRequestSchema,
   noteRequestSchema,
@@ -94,6 +94,7 @@ export function readingsView(entries: readonly JournalRecord[]): ReadingView[] {
 const reading = readingRequestSchema.shape;
 const tasting = tasteRequestSchema.shape;
 const addition = additionRequestSchema.shape;
+const start = batchStartSchema.shape;
 
 /** Per entry kind, the fields a later correction may change, each with the rule it must meet. */
 export const CORRECTABLE_FIELDS = {
@@ -106,6 +107,14 @@ export const CORRECTABLE_FIELDS = {
   },
   note: { text: noteRequestSchema.shape.text },
   addition: { name: addition.name, amount: addition.amount, unit: addition.unit, removeOn: addition.removeOn.unwrap() },
+  /** The start's figures: the batch's own record follows a correction of them. */
+  started: {
+    og: start.og.unwrap().unwrap(),
+    startedOn: start.startedOn,
+    volumeL: start.plannedVolumeL,
+    yeastName: start.yeast.shape.name,
+    yeastToleranceAbv: start.yeast.shape.toleranceAbv,
+  },
 } satisfies Partial<Record<JournalKind, z.ZodRawShape>>;
 
 export type CorrectableKind = keyof typeof CORRECTABLE_FIELDS;
@@ -127,7 +136,7 @@ export function correctableFieldNames(kind: JournalKind): string[] {
 export function correctionSchema(kind: CorrectableKind) {
   const shape = CORRECTABLE_FIELDS[kind];
   const fields = Object.keys(shape).join(', ');
-  const label = kind === 'tasted' ? 'a tasting' : kind === 'addition' ? 'an addition' : `a ${kind}`;
+  const label = kind === 'tasted' ? 'a tasting' : kind === 'addition' ? 'an addition' : kind === 'started' ? 'the start' : `a ${kind}`;
   return z
     .strictObject(shape, {
       error: (issue) =>

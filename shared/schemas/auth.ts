@@ -2,7 +2,11 @@ import { z } from 'zod';
 import { roleSchema } from '../roles';
 
 export const signInRequestSchema = z.object({
-  email: z.string().trim().toLowerCase().pipe(z.email({ message: 'enter an e-mail address' })),
+  email: z
+    .string()
+    // NFKC first: full-width or compatibility letters become the plain ones a person meant.
+    .transform((text) => text.normalize('NFKC').trim().toLowerCase())
+    .pipe(z.email({ message: 'enter an e-mail address' })),
   password: z.string().min(1, 'enter your password').max(200, 'password is too long'),
 });
 export type SignInRequest = z.infer<typeof signInRequestSchema>;

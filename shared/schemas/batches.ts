@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DATE_RANGE_MESSAGE, MIN_LITRES, MIN_LITRES_MESSAGE, yearInRange } from './value-ranges';
 import { slotRefSchema } from './vessels';
 
 export const BATCH_KINDS = [
@@ -52,7 +53,7 @@ export const gravitySchema = z
   .min(0.98, 'a gravity is at least 0.980')
   .max(1.2, 'a gravity is at most 1.200');
 
-export const isoDateSchema = z.iso.date({ message: 'a date like 2026-03-14' });
+export const isoDateSchema = z.iso.date({ message: 'a date like 2026-03-14', abort: true }).refine(yearInRange, DATE_RANGE_MESSAGE);
 
 export const ingredientSchema = z.object({
   category: z.enum(INGREDIENT_CATEGORIES),
@@ -69,7 +70,7 @@ export const yeastSchema = z.object({
 
 const fillSchema = z.object({
   vesselId: z.uuid(),
-  volumeL: z.number().positive('must be more than 0').max(20000),
+  volumeL: z.number().min(MIN_LITRES, MIN_LITRES_MESSAGE).max(20000),
   expectedVersion: z.number().int().optional(),
 });
 
@@ -81,7 +82,7 @@ export const batchStartSchema = z.object({
   kind: batchKindSchema,
   ingredients: z.array(ingredientSchema).max(30).default([]),
   yeast: yeastSchema,
-  plannedVolumeL: z.number().positive('must be more than 0').max(20000),
+  plannedVolumeL: z.number().min(MIN_LITRES, MIN_LITRES_MESSAGE).max(20000),
   startedOn: isoDateSchema,
   og: gravitySchema.nullable().default(null),
   targetSweetness: sweetnessSchema.nullable().default(null),

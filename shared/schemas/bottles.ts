@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DATE_RANGE_MESSAGE, yearInRange } from './value-ranges';
 import { CARBONATION, CLOSURES } from './journal';
 import { pageOf, slotRefSchema } from './vessels';
 
@@ -46,6 +47,8 @@ export const drawDownRequestSchema = z.object({
   count: z.number().int('whole bottles').min(1, 'at least one bottle'),
   reason: z.enum(DEPARTURE_REASONS),
   note: z.string().max(300).default(''),
+  /** When the bottles left (defaults to now): a departure is often written up later. */
+  at: z.iso.datetime({ offset: true, message: 'a date and time' }).refine(yearInRange, DATE_RANGE_MESSAGE).optional(),
   expectedVersion: z.number().int().optional(),
 });
 export type DrawDownRequest = z.input<typeof drawDownRequestSchema>;

@@ -40,7 +40,7 @@ export const cellarUpdateSchema = z
     timeZone: timeZoneSchema,
     sanitisedValidDays: z.number().int('whole days').min(1, 'at least 1 day').max(90, 'at most 90 days'),
     headspaceWarnPercent: z.number().min(0, 'cannot be negative').max(50, 'at most 50 %'),
-    annualLimitL: z.number().positive('must be more than 0').max(100000).nullable(),
+    annualLimitL: z.number().min(0.01, 'at least 0.01 L').max(100000).nullable(),
     publicBottleCards: z.boolean(),
   })
   .partial();
@@ -56,8 +56,4 @@ export const memberSchema = z.object({
 });
 export type Member = z.infer<typeof memberSchema>;
 
-export const memberAddSchema = z.object({
-  email: z.string().trim().toLowerCase().pipe(z.email({ message: 'enter an e-mail address' })),
-  role: roleSchema,
-});
 export const memberRoleSchema = z.object({ role: roleSchema });

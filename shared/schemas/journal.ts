@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { batchKindSchema, gravitySchema, isoDateSchema } from './batches';
+import { DATE_RANGE_MESSAGE, MIN_LITRES, MIN_LITRES_MESSAGE, yearInRange } from './value-ranges';
 
 /** A vessel as the journal remembers it (names can change later). */
 const vesselVolume = z.object({ vesselId: z.uuid(), vesselName: z.string(), volumeL: z.number() });
@@ -98,9 +99,9 @@ export type JournalEntry = z.infer<typeof journalEntrySchema>;
 
 // ---- Requests that write journal entries -------------------------------------------------
 
-const when = z.iso.datetime({ offset: true, message: 'a date and time' }).optional();
+const when = z.iso.datetime({ offset: true, message: 'a date and time' }).refine(yearInRange, DATE_RANGE_MESSAGE).optional();
 const vesselRef = z.object({ vesselId: z.uuid(), expectedVersion: z.number().int().optional() });
-const vesselFill = vesselRef.extend({ volumeL: z.number().positive('must be more than 0').max(20000) });
+const vesselFill = vesselRef.extend({ volumeL: z.number().min(MIN_LITRES, MIN_LITRES_MESSAGE).max(20000) });
 
 export const readingRequestSchema = z.object({
   sg: gravitySchema,

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MIN_LITRES, MIN_LITRES_MESSAGE } from './value-ranges';
 
 export const VESSEL_KINDS = ['carboy', 'demijohn', 'jug', 'bucket', 'keg', 'barrel', 'tank', 'other'] as const;
 export const VESSEL_MATERIALS = ['glass', 'plastic', 'stainless', 'oak', 'ceramic', 'other'] as const;
@@ -55,7 +56,7 @@ export const vesselSchema = z.object({
 export type Vessel = z.infer<typeof vesselSchema>;
 
 const name = z.string().trim().min(1, 'give it a name').max(60, 'at most 60 characters');
-const capacity = z.number({ message: 'enter the capacity in litres' }).positive('must be more than 0').max(20000, 'at most 20 000 L');
+const capacity = z.number({ message: 'enter the capacity in litres' }).min(MIN_LITRES, MIN_LITRES_MESSAGE).max(20000, 'at most 20 000 L');
 
 export const vesselCreateSchema = z.object({
   name,
@@ -93,7 +94,7 @@ export const vesselListQuerySchema = z.object({
   state: vesselStateSchema.optional(),
   /** Empty, sanitised (not lapsed) and not retired. */
   freeAndSanitised: booleanQuery.optional(),
-  minCapacityL: z.coerce.number().positive().optional(),
+  minCapacityL: z.coerce.number().min(0).max(20000).optional(),
   rackId: z.uuid().optional(),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
@@ -122,7 +123,7 @@ export const rackTargetSuggestionSchema = z.object({
 });
 
 export const rackTargetQuerySchema = z.object({
-  volumeL: z.coerce.number().positive('must be more than 0'),
+  volumeL: z.coerce.number().min(MIN_LITRES, MIN_LITRES_MESSAGE).max(20000, 'at most 20 000 L'),
   stage: z.enum(['primary', 'secondary', 'ageing']).default('secondary'),
   exclude: z.string().optional(),
 });

@@ -13,9 +13,6 @@ export const updateCellar = (cellarId: string, changes: CellarUpdate): Promise<C
 export const fetchMembers = (cellarId: string): Promise<Member[]> =>
   request('GET', cellarPath(cellarId, 'members'), z.array(memberSchema));
 
-export const addMember = (cellarId: string, email: string, role: Role): Promise<Member> =>
-  request('POST', cellarPath(cellarId, 'members'), memberSchema, { email, role });
-
 export const changeMemberRole = (cellarId: string, memberId: string, role: Role): Promise<Member[]> =>
   request('PATCH', cellarPath(cellarId, 'members', memberId), z.array(memberSchema), { role });
 

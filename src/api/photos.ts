@@ -7,6 +7,9 @@ export type { PhotoUploadResult };
 /** Where the browser loads a photo's small version. */
 export const photoThumbnailUrl = (cellarId: string, photoId: string) => cellarPath(cellarId, 'photos', photoId, 'thumbnail');
 
+/** Where the browser opens a photo to look at it (at most 2,560 px on its long side). */
+export const photoDisplayUrl = (cellarId: string, photoId: string) => cellarPath(cellarId, 'photos', photoId, 'display');
+
 /** Where the browser loads a photo at full size. */
 export const photoUrl = (cellarId: string, photoId: string) => cellarPath(cellarId, 'photos', photoId);
 

@@ -22,8 +22,13 @@ export function useFormat() {
     mass: (kg: number | null | undefined) => (kg == null ? '—' : formatMass(kg, system.value)),
     /** The unit volume inputs are typed in. */
     volumeUnit,
-    /** A typed volume (in the user's unit) to litres. */
-    toLitres: (value: number) => litresFrom(value, volumeUnit.value === 'L' ? 'L' : 'US gal'),
+    /**
+     * A typed volume (in the user's unit) to litres. Never throws: a negative or odd number
+     * typed into a form converts as it is, so the form's schema shows its message under the
+     * field instead of the conversion failing while the form is drawn (which blanked it).
+     */
+    toLitres: (value: number) =>
+      Number.isFinite(value) ? Math.sign(value) * litresFrom(Math.abs(value), volumeUnit.value === 'L' ? 'L' : 'US gal') : value,
     /** Litres to the user's unit, for filling an input. */
     fromLitres: (litres: number) => Number(litresTo(litres, volumeUnit.value === 'L' ? 'L' : 'US gal').toFixed(2)),
     gravity: (sg: number | null | undefined) => (sg == null ? '—' : sg.toFixed(3)),

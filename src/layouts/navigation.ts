@@ -1,3 +1,4 @@
+import type { Role } from '@shared/roles';
 import type { CellarScreenName } from '@/router/routes';
 
 export interface NavItem {
@@ -6,6 +7,8 @@ export interface NavItem {
   icon: string;
   /** Shown in the phone's bottom bar. */
   inBottomBar?: boolean;
+  /** Shown only to members with at least this role. */
+  least?: Role;
 }
 
 export interface NavGroup {
@@ -33,6 +36,7 @@ export const NAV_GROUPS: NavGroup[] = [
       { name: 'labels', label: 'Labels', icon: 'qr_code_2' },
       { name: 'calculators', label: 'Calculators', icon: 'calculate' },
       { name: 'settings', label: 'Settings', icon: 'tune' },
+      { name: 'audit', label: 'Audit', icon: 'manage_history', least: 'keeper' },
     ],
   },
 ];

@@ -10,6 +10,10 @@ type NoParams = Record<string, never>;
  */
 export interface RouteParams {
   'sign-in': NoParams;
+  'forgot-password': NoParams;
+  'reset-password': NoParams;
+  invitation: NoParams;
+  'outgoing-mail': InCellar;
   home: NoParams;
   today: InCellar;
   scan: InCellar;
@@ -23,6 +27,7 @@ export interface RouteParams {
   tasks: InCellar;
   calculators: InCellar;
   settings: InCellar;
+  audit: InCellar;
   'no-such-label': NoParams;
   'bottle-card': { code: string };
   'label-url': { code: string };
@@ -49,6 +54,20 @@ declare module 'vue-router' {
 
 export const routes: NamedRoute[] = [
   { path: '/sign-in', name: 'sign-in', component: () => import('@/pages/SignInPage.vue'), meta: { public: true, title: 'Sign in' } },
+  // Reached from mailed links (server/accounts/): reset a password, answer an invitation.
+  {
+    path: '/forgot-password',
+    name: 'forgot-password',
+    component: () => import('@/pages/ForgotPasswordPage.vue'),
+    meta: { public: true, title: 'Forgot password' },
+  },
+  {
+    path: '/reset-password',
+    name: 'reset-password',
+    component: () => import('@/pages/ResetPasswordPage.vue'),
+    meta: { public: true, title: 'New password' },
+  },
+  { path: '/invitation', name: 'invitation', component: () => import('@/pages/InvitationPage.vue'), meta: { public: true, title: 'Invitation' } },
   { path: '/', name: 'home', component: () => import('@/pages/HomeRedirect.vue') },
   {
     path: '/c/:cellarId',
@@ -67,6 +86,8 @@ export const routes: NamedRoute[] = [
       { path: 'tasks', name: 'tasks', component: () => import('@/pages/TasksPage.vue'), meta: { title: 'Tasks' } },
       { path: 'calculators', name: 'calculators', component: () => import('@/pages/CalculatorsPage.vue'), meta: { title: 'Calculators' } },
       { path: 'settings', name: 'settings', component: () => import('@/pages/SettingsPage.vue'), meta: { title: 'Settings' } },
+      { path: 'outgoing-mail', name: 'outgoing-mail', component: () => import('@/pages/OutgoingMailPage.vue'), meta: { title: 'Outgoing mail' } },
+      { path: 'audit', name: 'audit', component: () => import('@/pages/AuditPage.vue'), meta: { title: 'Audit' } },
     ],
   },
   // Where label URLs (/s/:code, served by the API) lead when they open nothing, or a public bottle card.

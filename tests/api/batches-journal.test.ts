@@ -208,7 +208,12 @@ describe('amendments', () => {
     expect(amendRacking.status).toBe(409);
     expect(amendRacking.body.message).toBe('Volumes and vessel moves cannot be amended; record a new operation instead.');
     const startedId = result.batch.journal[0].id;
-    expect((await crew.as.hand.post(url(result.batch.id, `journal/${startedId}/amendments`)).send({ reason: 'Wrong volume', changes: { volumeL: 21 } })).status).toBe(409);
+    // The start's figures can be corrected (issue 12); which vessels it filled cannot.
+    const amendStartVessels = await crew.as.hand
+      .post(url(result.batch.id, `journal/${startedId}/amendments`))
+      .send({ reason: 'Wrong vessel', changes: { vessels: [{ vesselId: target.id, vesselName: target.name, volumeL: 20 }] } });
+    expect(amendStartVessels.status).toBe(400);
+    expect(amendStartVessels.body.message).toMatch(/^body\.changes: the start has no field vessels/);
 
     const reading = await crew.as.hand.post(url(result.batch.id, 'readings')).send({ sg: 1.01 }).expect(201);
     const amend = (changes: Record<string, unknown>) =>

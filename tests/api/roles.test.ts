@@ -10,7 +10,8 @@ let app: Awaited<ReturnType<typeof testApp>>['app'];
 let ds: Awaited<ReturnType<typeof testApp>>['ds'];
 
 beforeAll(async () => {
-  ({ app, ds } = await testApp());
+  // Mail limits of its own: the shared per-client count (in the database) is not this file's subject (see invitations.test.ts).
+  ({ app, ds } = await testApp({ mail: { limits: { perEmailPerHour: 100, perIpPerHour: 10_000 } } }));
   crew = await makeCellarWithCrew(ds);
   other = await makeCellarWithCrew(ds);
   as = await agentsFor(app, crew, TEST_PASSWORD);
@@ -18,6 +19,7 @@ beforeAll(async () => {
 
 const settings = (cellarId: string) => `/api/cellars/${cellarId}/settings`;
 const members = (cellarId: string) => `/api/cellars/${cellarId}/members`;
+const invitations = (cellarId: string) => `/api/cellars/${cellarId}/invitations`;
 
 describe('reading', () => {
   it('lets every role read the cellar and its members', async () => {
@@ -56,18 +58,35 @@ describe('writing', () => {
     expect(paths).toEqual(expect.arrayContaining(['body.timeZone', 'body.sanitisedValidDays']));
   });
 
-  it('lets only a Keeper manage members', async () => {
+  // People join by invitation only (issue 10): a Keeper invites, the person accepts, and only
+  // then is a member. The invitation flow itself is tested in invitations.test.ts.
+  it('lets only a Keeper invite and manage members', async () => {
     const newcomer = await makeUser(ds, 'New Comer');
-    const byHand = await as.hand.post(members(crew.cellar.id)).send({ email: newcomer.email, role: 'guest' });
+    const byHand = await as.hand.post(invitations(crew.cellar.id)).send({ email: newcomer.email, role: 'guest' });
     expect(byHand.status).toBe(403);
-    const byKeeper = await as.keeper.post(members(crew.cellar.id)).send({ email: newcomer.email, role: 'guest' });
+    const byGuest = await as.guest.post(invitations(crew.cellar.id)).send({ email: newcomer.email, role: 'guest' });
+    expect(byGuest.status).toBe(403);
+    const byKeeper = await as.keeper.post(invitations(crew.cellar.id)).send({ email: newcomer.email, role: 'guest' });
     expect(byKeeper.status).toBe(201);
-    const again = await as.keeper.post(members(crew.cellar.id)).send({ email: newcomer.email, role: 'hand' });
+    const again = await as.keeper.post(invitations(crew.cellar.id)).send({ email: newcomer.email, role: 'hand' });
     expect(again.status).toBe(409);
-    const removeByHand = await as.hand.delete(`${members(crew.cellar.id)}/${byKeeper.body.id}`);
+    // Invited is not a member: the list is unchanged until they accept.
+    expect((await as.keeper.get(members(crew.cellar.id))).body).toHaveLength(3);
+    expect((await as.hand.get(invitations(crew.cellar.id))).status).toBe(403);
+    const withdrawByHand = await as.hand.delete(`${invitations(crew.cellar.id)}/${byKeeper.body.id}`);
+    expect(withdrawByHand.status).toBe(403);
+    const withdraw = await as.keeper.delete(`${invitations(crew.cellar.id)}/${byKeeper.body.id}`);
+    expect(withdraw.status).toBe(204);
+    // The old way in, adding an account directly, is gone.
+    expect((await as.keeper.post(members(crew.cellar.id)).send({ email: newcomer.email, role: 'guest' })).status).toBe(404);
+
+    const list = await as.keeper.get(members(crew.cellar.id));
+    const handRow = list.body.find((m: { role: string }) => m.role === 'hand');
+    const removeByHand = await as.hand.delete(`${members(crew.cellar.id)}/${handRow.id}`);
     expect(removeByHand.status).toBe(403);
-    const remove = await as.keeper.delete(`${members(crew.cellar.id)}/${byKeeper.body.id}`);
+    const remove = await as.keeper.delete(`${members(crew.cellar.id)}/${handRow.id}`);
     expect(remove.status).toBe(204);
+    expect((await as.keeper.get(members(crew.cellar.id))).body).toHaveLength(2);
   });
 
   it('never leaves a cellar without a Keeper', async () => {

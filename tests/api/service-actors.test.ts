@@ -1,9 +1,11 @@
 /// <reference types="vite/client" />
+import { PassThrough } from 'node:stream';
 import type { EntityManager } from 'typeorm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
 import { batchStartSchema, batchUpdateSchema } from '../../shared/schemas/batches';
 import { drawDownRequestSchema } from '../../shared/schemas/bottles';
+import { importOptionsSchema, readingImportQuerySchema } from '../../shared/schemas/exchange';
 import {
   additionRequestSchema,
   amendRequestSchema,
@@ -20,6 +22,7 @@ import {
 } from '../../shared/schemas/journal';
 import { moveSchema, rackCreateSchema, rackUpdateSchema } from '../../shared/schemas/places';
 import { vesselCleaningSchema, vesselCreateSchema, vesselRetireSchema, vesselUpdateSchema } from '../../shared/schemas/vessels';
+import { writeArchive } from '../../server/archive/archive-writer';
 import type { Actor } from '../../server/core/actor';
 import { AppError, ForbiddenError } from '../../server/http/errors';
 import type { CheckedPhoto } from '../../server/photos/photo-check';
@@ -29,6 +32,9 @@ import { contextOf, makeCellarWithCrew, type CellarCrew } from '../helpers/crew'
 import { addJournalEntry, reading } from '../helpers/journal';
 import { makeRack } from '../helpers/places';
 import { testDataSource } from '../helpers/test-app';
+import { ensureDefaultPlans, plansOf } from '../../server/plans/plan-queries';
+import { planWriteSchema, type PlanRuleInput } from '../../shared/schemas/plans';
+import { oneOffTaskRequestSchema } from '../../shared/schemas/tasks';
 import { sanitisedVessel } from '../helpers/vessels';
 
 /**
@@ -67,6 +73,32 @@ const READS = new Set([
   'shelfContents',
   'checkShelf',
   'readPhoto',
+  // Tasks and plans (server/tasks, server/plans); a calendar feed is a member's own, any member turns theirs on or off.
+  'listTasks',
+  'tasksDue',
+  'listPlans',
+  'getBatchPlan',
+  'getCalendarFeed',
+  'turnOnCalendarFeed',
+  'turnOffCalendarFeed',
+  // CSV exports (server/exchange): any member may download what they can read.
+  'exportBatches',
+  'exportVessels',
+  'exportLots',
+  'exportCases',
+  'exportDepartures',
+  'exportJournal',
+  'exportReadings',
+  // The audit trail reads, but only for Keepers (tests/api/audit.test.ts checks the refusals).
+  'listAudit',
+  // The whole-cellar archive download: Keepers only (tests/api/archive.test.ts).
+  'exportArchive',
+  'listInvitations',
+  'getMailStatus',
+  'listOutgoingMail',
+  'getMyMailSettings',
+  // A write every member, Guests too, may make: it changes only the caller's own e-mail settings.
+  'setMyMailSettings',
 ]);
 
 /** What a write is tried with: a victim cellar's things, as the service's caller would pass them. */
@@ -83,7 +115,21 @@ interface Victim {
   rackId: string;
   shelfId: string;
   memberId: string;
+  /** The take-out task of the victim batch's oak. */
+  taskKey: string;
+  planId: string;
+  /** A waiting invitation to the victim cellar. */
+  invitationId: string;
+  /** A message of the victim cellar that failed to send. */
+  failedMailId: string;
 }
+
+const testRule: PlanRuleInput = {
+  id: 'r',
+  what: 'reading',
+  when: { type: 'after', anchor: 'start', after: { count: 7, unit: 'days' } },
+  showDaysAhead: 1,
+};
 
 const parse = <S extends z.ZodType>(schema: S, value: z.input<S>): z.output<S> => schema.parse(value);
 
@@ -148,7 +194,10 @@ const WRITES: Record<string, { args: (v: Victim) => unknown[]; ownCellarOnly?: t
   drawDown: { args: (v) => [v.caseId, parse(drawDownRequestSchema, { count: 1, reason: 'drunk' })] },
   moveCase: { args: (v) => [v.caseId, parse(moveSchema, { to: { shelfId: v.shelfId, slot: 1 } })] },
   updateCellar: { args: () => [{ name: 'Renamed cellar' }], ownCellarOnly: true },
-  addMember: { args: () => [stranger.hand.email, 'guest'], ownCellarOnly: true },
+  inviteMember: { args: () => ['invited.newcomer@example.test', 'guest', 'http://127.0.0.1:8460'], ownCellarOnly: true },
+  resendInvitation: { args: (v) => [v.invitationId, 'http://127.0.0.1:8460'] },
+  revokeInvitation: { args: (v) => [v.invitationId] },
+  retryMail: { args: (v) => [v.failedMailId] },
   changeMember: { args: (v) => [v.memberId, { role: 'guest' }] },
   createVessel: {
     args: () => [parse(vesselCreateSchema, { name: 'Test jug', kind: 'jug', material: 'glass', capacityL: 4.5 })],
@@ -162,12 +211,46 @@ const WRITES: Record<string, { args: (v: Victim) => unknown[]; ownCellarOnly?: t
   createRack: { args: () => [parse(rackCreateSchema, { name: 'Test rack', shelves: [4] })], ownCellarOnly: true },
   updateRack: { args: (v) => [v.rackId, parse(rackUpdateSchema, { name: 'Renamed rack' })] },
   deleteRack: { args: (v) => [v.rackId] },
+  markTaskDone: { args: (v) => [v.taskKey] },
+  snoozeTask: { args: (v) => [v.taskKey, '2099-01-01'] },
+  dismissTask: { args: (v) => [v.taskKey, 'not needed'] },
+  reopenTask: { args: (v) => [v.taskKey] },
+  addOneOffTask: { args: (v) => [parse(oneOffTaskRequestSchema, { batchId: v.batchId, title: 'Order corks', dueOn: '2027-01-01' })] },
+  createPlan: { args: () => [parse(planWriteSchema, { name: 'Test plan', rules: [testRule] })], ownCellarOnly: true },
+  updatePlan: { args: (v) => [v.planId, parse(planWriteSchema, { name: 'Renamed plan', rules: [testRule] })] },
+  deletePlan: { args: (v) => [v.planId] },
+  assignPlan: { args: (v) => [v.batchId, v.planId] },
+  // CSV imports (server/exchange): Keeper work; the upload is any async iterable of chunks.
+  previewImport: { args: () => ['readings', [Buffer.from('at,sg\n2026-01-02,1.050\n')]], ownCellarOnly: true },
+  importReadings: {
+    args: (v) => [
+      parse(readingImportQuerySchema, { batchId: v.batchId, columns: JSON.stringify({ at: 'at', sg: 'sg' }) }),
+      [Buffer.from(`at,sg\n${new Date(Date.now() - 86_400_000).toISOString()},1.050\n`)],
+    ],
+  },
+  importVessels: {
+    args: () => [
+      parse(importOptionsSchema, { columns: JSON.stringify({ name: 'name', capacity: 'capacity' }) }),
+      [Buffer.from('name,capacity\nJug,4.5\n')],
+    ],
+    ownCellarOnly: true,
+  },
+  // A restore makes a new cellar from an archive of the victim's own (the upload streams lazily).
+  restoreCellar: { args: () => [archiveOf(victim.cellar.id)], ownCellarOnly: true },
   addPhoto: {
     args: (v) => [v.batchId, { mimeType: 'image/png', stored: Buffer.from([1]), thumbnail: Buffer.from([1]) } as unknown as CheckedPhoto, 'caption'],
   },
 };
 
 let ds: Awaited<ReturnType<typeof testDataSource>>;
+
+/** A cellar's archive as upload chunks, written only when a restore starts reading it. */
+async function* archiveOf(cellarId: string): AsyncGenerator<Buffer> {
+  const out = new PassThrough();
+  const written = ds.transaction('REPEATABLE READ', (tx) => writeArchive(tx, cellarId, out));
+  for await (const chunk of out) yield chunk as Buffer;
+  await written;
+}
 let victim: CellarCrew;
 let stranger: CellarCrew;
 let v: Victim;
@@ -207,6 +290,12 @@ beforeAll(async () => {
     rackId: rack.id,
     shelfId: rack.shelfIds[0],
     memberId: member.id,
+    taskKey: `${batch.id}/oak-out/${oakEntryId}`,
+    planId: await ds.transaction(async (tx) => {
+      await ensureDefaultPlans(tx, victim.cellar.id);
+      return (await plansOf(tx, victim.cellar.id))[0]!.id;
+    }),
+    ...(await victimMail(ds, victim)),
   };
 });
 
@@ -270,3 +359,19 @@ describe('every service checks its actor (the inner door)', () => {
     expect(await attempt((tx) => getBatch.fn(guest, tx, v.batchId))).toBe('succeeded');
   });
 });
+
+/** A waiting invitation and a failed message in the victim cellar, written as the app would leave them. */
+async function victimMail(ds: Awaited<ReturnType<typeof testDataSource>>, crew: CellarCrew) {
+  const [invitation]: { id: string }[] = await ds.query(
+    `INSERT INTO invitations (cellar_id, email, role, token_hash, invited_by, expires_at)
+     VALUES ($1, 'waiting.invitee@example.test', 'hand', repeat('a', 64), $2, now() + interval '7 days') RETURNING id`,
+    [crew.cellar.id, crew.keeper.id],
+  );
+  const [failed]: { id: string }[] = await ds.query(
+    `INSERT INTO mail_outbox (cellar_id, kind, to_address, subject, text_body, html_body, message_id, status, attempts, last_error)
+     VALUES ($1, 'invitation', 'someone@example.test', 'Hello', 'text', '<p>html</p>', '<failed@example.test>', 'failed', 8, '550 no such user')
+     RETURNING id`,
+    [crew.cellar.id],
+  );
+  return { invitationId: invitation!.id, failedMailId: failed!.id };
+}

@@ -40,7 +40,7 @@ describe('POST /vessels', () => {
     const created = await create({ name: 'Tall carboy', notes: 'chip on the neck' });
     expect(labelCodeSchema.safeParse(created.code).success).toBe(true);
     expect(created).toMatchObject({ name: 'Tall carboy', state: 'dirty', sanitisedAt: null, batch: null, place: null, volumeL: null });
-    const again = await create({ name: 'Tall carboy' });
+    const again = await create({ name: 'Tall carboy 2' });
     expect(again.code).not.toBe(created.code);
   });
 

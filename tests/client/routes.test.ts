@@ -11,6 +11,10 @@ import { BATCH_ID, CELLAR_ID, signIn } from './support/fixtures';
 // name does not build), and the test checks the router knows each one.
 const ALL_NAMES = {
   'sign-in': true,
+  'forgot-password': true,
+  'reset-password': true,
+  invitation: true,
+  'outgoing-mail': true,
   home: true,
   today: true,
   scan: true,
@@ -24,6 +28,7 @@ const ALL_NAMES = {
   tasks: true,
   calculators: true,
   settings: true,
+  audit: true,
   'no-such-label': true,
   'bottle-card': true,
   'label-url': true,

@@ -1,5 +1,6 @@
 import type { JournalPayload } from '@shared/schemas/journal';
 import { TASTING_SCORE_MAX } from '@shared/schemas/journal';
+import { isReadableDate } from '@shared/schemas/value-ranges';
 
 /** The formatting functions the descriptions need (useFormat provides them). */
 export interface JournalFormat {
@@ -59,7 +60,7 @@ export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryD
       return {
         icon: 'add_circle',
         title: `Added ${payload.name}`,
-        lines: [`${payload.amount} ${payload.unit} · ${payload.category}`, payload.removeOn ? `To come out on ${f.date(payload.removeOn)}` : ''],
+        lines: [`${payload.amount} ${payload.unit} · ${payload.category}`, removeOnWords(payload.removeOn, f)],
       };
     case 'removed':
       return { icon: 'remove_circle', title: `Took out ${payload.name}`, lines: [] };
@@ -108,8 +109,16 @@ export function describeChanges(changes: Record<string, unknown>, f: JournalForm
       if (value === null || value === '') return `${key} cleared`;
       if (key === 'sg' && typeof value === 'number') return `gravity ${f.gravity(value)}`;
       if (key === 'temperatureC' && typeof value === 'number') return `temperature ${f.temperature(value)}`;
-      if (key === 'removeOn' && typeof value === 'string') return `comes out ${f.date(value)}`;
+      if (key === 'removeOn' && typeof value === 'string') {
+        return isReadableDate(value) ? `comes out ${f.date(value)}` : `take-out date unreadable (${value})`;
+      }
       return `${key} ${String(value)}`;
     })
     .join(', ');
+}
+
+/** The take-out line of an addition; a stored date that cannot be read says so (amend it) instead of showing nonsense. */
+function removeOnWords(removeOn: string | null, f: JournalFormat): string {
+  if (!removeOn) return '';
+  return isReadableDate(removeOn) ? `To come out on ${f.date(removeOn)}` : `Take-out date unreadable (${removeOn}): amend this entry to set it`;
 }

@@ -38,6 +38,13 @@ const PRESENTATION: AmendPresentation = {
     score: { label: 'Score', type: 'number' },
   },
   note: { text: { label: 'Note', type: 'longtext' } },
+  started: {
+    og: { label: 'Original gravity', type: 'number' },
+    startedOn: { label: 'Started on', type: 'date' },
+    volumeL: { label: 'Volume (litres)', type: 'number' },
+    yeastName: { label: 'Yeast', type: 'text' },
+    yeastToleranceAbv: { label: 'Yeast alcohol tolerance (% ABV)', type: 'number' },
+  },
 };
 
 /** The fields a correction of an entry of `kind` may change, in the shared order ([] when none). */

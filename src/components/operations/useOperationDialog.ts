@@ -1,8 +1,8 @@
-import { onBeforeMount, reactive, ref, watch } from 'vue';
+import { nextTick, onBeforeMount, reactive, ref, watch } from 'vue';
 import { useQuasar } from 'quasar';
 import type { ZodType } from 'zod';
 import { ApiError } from '@/api/http';
-import { fieldKey, friendlyMessage, isSanitiseRefusal } from './operation-errors';
+import { fieldKey, friendlyMessage, isSanitiseRefusal, plainMessage, valueAt } from './operation-errors';
 import { useCellarId } from './useDialogBatch';
 
 /** Field messages keyed by the request's field path (`sg`, `to.0.volumeL`, `override.reason`). */
@@ -68,9 +68,23 @@ export function useOperationDialog<Request, Result>(options: OperationDialogOpti
   const overriding = ref(false);
   const overrideReason = ref('');
 
+  /** Each marked field's value when its message was given: a change to it clears the message. */
+  const valuesWhenShown = new Map<string, string>();
+
   function reset(): void {
     for (const key of Object.keys(errors)) delete errors[key];
+    valuesWhenShown.clear();
     failure.value = null;
+  }
+
+  /** Remembers what each marked field held, and brings the first message into view (a phone shows little of a long form). */
+  function markShownValues(): void {
+    const form = options.request();
+    for (const key of Object.keys(errors)) valuesWhenShown.set(key, JSON.stringify(valueAt(form, key)) ?? '');
+    void nextTick(() => {
+      const marked = document.querySelector('.q-dialog .q-field--error, .q-dialog [role="alert"]');
+      marked?.scrollIntoView({ block: 'center', behavior: 'smooth' });
+    });
   }
 
   /** Checks a request with its schema; fills `errors` and answers null when it does not pass. */
@@ -80,6 +94,7 @@ export function useOperationDialog<Request, Result>(options: OperationDialogOpti
     const parsed = schema.safeParse(value);
     if (parsed.success) return parsed.data;
     for (const issue of parsed.error.issues) errors[fieldKey(issue.path.join('.'))] ??= friendlyMessage(issue);
+    markShownValues();
     return null;
   }
 
@@ -92,8 +107,10 @@ export function useOperationDialog<Request, Result>(options: OperationDialogOpti
     } catch (err) {
       const apiError =
         err instanceof ApiError ? err : new ApiError(0, 'unexpected', 'The answer from the server was not understood. Reload and try again.');
-      for (const issue of apiError.issues) errors[fieldKey(issue.path)] = issue.message;
-      failure.value = apiError;
+      for (const issue of apiError.issues) errors[fieldKey(issue.path)] = plainMessage(issue.message);
+      // The banner says it in plain words too, with the field's name rather than its path.
+      failure.value = new ApiError(apiError.status, apiError.code, plainMessage(apiError.message), apiError.issues, apiError.body);
+      markShownValues();
       return { ok: false };
     } finally {
       busy.value = false;
@@ -126,6 +143,7 @@ export function useOperationDialog<Request, Result>(options: OperationDialogOpti
     const refusal = options.check?.(request);
     if (refusal) {
       Object.assign(errors, refusal);
+      markShownValues();
       return;
     }
     const sent = await send(request);
@@ -137,6 +155,21 @@ export function useOperationDialog<Request, Result>(options: OperationDialogOpti
     options.emit('done', sent.result);
     options.emit('update:modelValue', false);
   }
+
+  // A message goes as soon as its field is changed (the fix is checked again on sending).
+  watch(
+    () => JSON.stringify(options.request() ?? null),
+    () => {
+      if (valuesWhenShown.size === 0) return;
+      const form = options.request();
+      for (const [key, shown] of valuesWhenShown) {
+        if ((JSON.stringify(valueAt(form, key)) ?? '') !== shown) {
+          delete errors[key];
+          valuesWhenShown.delete(key);
+        }
+      }
+    },
+  );
 
   // Every opening starts from a fresh form and freshly loaded data.
   watch(

@@ -248,17 +248,18 @@ describe('which fields may be corrected', () => {
     expect(correctableFieldNames('tasted')).toEqual(['appearance', 'aroma', 'flavour', 'score']);
     expect(correctableFieldNames('note')).toEqual(['text']);
     expect(correctableFieldNames('addition')).toEqual(['name', 'amount', 'unit', 'removeOn']);
-    expect(Object.keys(CORRECTABLE_FIELDS)).toEqual(['reading', 'tasted', 'note', 'addition']);
+    expect(correctableFieldNames('started')).toEqual(['og', 'startedOn', 'volumeL', 'yeastName', 'yeastToleranceAbv']);
+    expect(Object.keys(CORRECTABLE_FIELDS)).toEqual(['reading', 'tasted', 'note', 'addition', 'started']);
   });
 
-  it('lets no entry that moves liquid, nor an amendment, be corrected', () => {
+  it('lets no entry that moves liquid, nor an amendment, be corrected — except the start, whose figures can be put right', () => {
     expect(VOLUME_KINDS).toEqual(['started', 'racked', 'topped-up', 'bottled', 'split', 'blended']);
-    const never: JournalKind[] = [...VOLUME_KINDS, 'amendment', 'removed', 'degassed', 'photo'];
+    const never: JournalKind[] = [...VOLUME_KINDS.filter((k) => k !== 'started'), 'amendment', 'removed', 'degassed', 'photo'];
     for (const kind of never) {
       expect(isCorrectable(kind), kind).toBe(false);
       expect(correctableFieldNames(kind), kind).toEqual([]);
     }
-    for (const kind of ['reading', 'tasted', 'note', 'addition'] as const) expect(isCorrectable(kind), kind).toBe(true);
+    for (const kind of ['reading', 'tasted', 'note', 'addition', 'started'] as const) expect(isCorrectable(kind), kind).toBe(true);
   });
 });
 

@@ -1,0 +1,31 @@
+import { z } from 'zod';
+import { errorFromAnswer, offlineError } from './http';
+import { cellarPath, withQuery } from './paths';
+
+export const restoredCellarSchema = z.object({
+  cellarId: z.uuid(),
+  name: z.string(),
+  remappedCodes: z.array(z.object({ table: z.string(), name: z.string(), from: z.string(), to: z.string() })),
+});
+export type RestoredCellar = z.infer<typeof restoredCellarSchema>;
+
+/** Where the whole cellar downloads as one .tar.gz (a plain link: the browser saves it). */
+export const archiveUrl = (cellarId: string): string => cellarPath(cellarId, 'archive');
+
+/** Restores an archive file as a new cellar; label codes taken here come back remapped. */
+export async function restoreArchive(cellarId: string, file: Blob, name?: string): Promise<RestoredCellar> {
+  let res: Response;
+  try {
+    res = await fetch(withQuery(cellarPath(cellarId, 'archive', 'restorations'), { name }), {
+      method: 'POST',
+      credentials: 'same-origin',
+      headers: { accept: 'application/json', 'content-type': 'application/gzip' },
+      body: file,
+    });
+  } catch {
+    throw offlineError();
+  }
+  const raw = await res.json().catch(() => ({}));
+  if (!res.ok) throw errorFromAnswer(res.status, raw);
+  return restoredCellarSchema.parse(raw);
+}

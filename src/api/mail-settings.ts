@@ -1,0 +1,10 @@
+import { mailSettingsSchema, type MailSettings } from '@shared/schemas/mail-settings';
+import { request } from './http';
+import { cellarPath } from './paths';
+
+/** The signed-in member's own e-mail reminders in a cellar. */
+export const fetchMyMailSettings = (cellarId: string): Promise<MailSettings> =>
+  request('GET', cellarPath(cellarId, 'mail-settings'), mailSettingsSchema);
+
+export const saveMyMailSettings = (cellarId: string, settings: MailSettings): Promise<MailSettings> =>
+  request('PUT', cellarPath(cellarId, 'mail-settings'), mailSettingsSchema, settings);

@@ -1,0 +1,211 @@
+import { describe, expect, it } from 'vitest';
+import type { BatchFacts, FactEvent } from '../../../shared/domain/plans/batch-facts';
+import { computeTasks } from '../../../shared/domain/plans/compute-tasks';
+import { DEFAULT_PLANS } from '../../../shared/domain/plans/default-plans';
+import { addMonths, addPeriod, daysBetween } from '../../../shared/domain/plans/local-dates';
+import { planRuleSchema, planRulesSchema, type PlanRule, type PlanRuleInput } from '../../../shared/schemas/plans';
+
+const B = '00000000-0000-4000-8000-000000000001';
+const mead = planRulesSchema.parse(DEFAULT_PLANS.find((p) => p.name === 'Mead')!.rules);
+const rules = (...input: PlanRuleInput[]): PlanRule[] => planRulesSchema.parse(input);
+const facts = (stage: BatchFacts['stage'], events: FactEvent[], startedOn = '2026-03-01'): BatchFacts => ({ batchId: B, startedOn, stage, events });
+const keysDue = (tasks: ReturnType<typeof computeTasks>) => tasks.map((t) => [t.key.slice(B.length + 1), t.dueOn]);
+
+describe('local dates (calendar arithmetic)', () => {
+  it('ends a month that has no such day on its last day (31 January + 1 month)', () => {
+    expect(addMonths('2026-01-31', 1)).toBe('2026-02-28');
+    expect(addMonths('2028-01-31', 1)).toBe('2028-02-29'); // 2028 is a leap year (Gregorian rule: divisible by 4, not by 100)
+    expect(addMonths('2026-08-31', 1)).toBe('2026-09-30');
+    expect(addMonths('2026-11-15', 3)).toBe('2027-02-15');
+  });
+
+  it('counts repeats from the first date, so month ends do not drift', () => {
+    // 31 Jan → 28 Feb → 31 Mar, not 28 Mar.
+    expect(addPeriod('2026-01-31', { count: 1, unit: 'months' }, 2)).toBe('2026-03-31');
+    expect(addPeriod('2026-03-01', { count: 2, unit: 'weeks' })).toBe('2026-03-15');
+  });
+
+  it('is untouched by daylight-saving changes (dates, not clock times)', () => {
+    // 29 March 2026 is the EU change to summer time; 25 October 2026 back (EU Directive 2000/84/EC: last Sundays).
+    expect(addPeriod('2026-03-28', { count: 1, unit: 'days' })).toBe('2026-03-29');
+    expect(addPeriod('2026-03-28', { count: 2, unit: 'days' })).toBe('2026-03-30');
+    expect(daysBetween('2026-10-24', '2026-10-26')).toBe(2);
+  });
+});
+
+describe('the default plans (common practice, pinned so a change is deliberate)', () => {
+  const rule = (id: string) => mead.find((r) => r.id === id)!;
+
+  it('racks off primary after 30 days and again 90 days after each racking (common practice, same as "needs racking")', () => {
+    expect(rule('rack-off-primary').when).toEqual({ type: 'after', anchor: 'start', after: { count: 30, unit: 'days' } });
+    expect(rule('re-rack').when).toEqual({ type: 'after', anchor: 'each-racking', after: { count: 90, unit: 'days' } });
+  });
+
+  it('reads weekly in primary, checks headspace 3 days after a racking then monthly, oak every 3 days (common practice)', () => {
+    expect(rule('weekly-reading').when).toEqual({ type: 'every', every: { count: 1, unit: 'weeks' }, while: 'primary' });
+    expect(rule('headspace-after-racking').when).toEqual({ type: 'after', anchor: 'each-racking', after: { count: 3, unit: 'days' } });
+    expect(rule('headspace-monthly').when).toEqual({ type: 'every', every: { count: 1, unit: 'months' }, while: 'racked' });
+    expect(rule('oak-check').when).toEqual({ type: 'every', every: { count: 3, unit: 'days' }, while: 'oak-in' });
+  });
+
+  it('marks milestones at 3, 6 and 12 months in bulk and 6 and 12 in bottle (common practice)', () => {
+    const milestones = mead.filter((r) => r.what === 'milestone').map((r) => [r.id, r.when.type === 'after' ? r.when.after.count : null]);
+    expect(milestones).toEqual([
+      ['bulk-3-months', 3],
+      ['bulk-6-months', 6],
+      ['bulk-12-months', 12],
+      ['bottle-6-months', 6],
+      ['bottle-12-months', 12],
+    ]);
+  });
+
+  it('says on every rule of every default plan that it is common practice', () => {
+    for (const plan of DEFAULT_PLANS) for (const r of plan.rules) expect(r.note).toMatch(/^Common practice: /);
+    expect(DEFAULT_PLANS.map((p) => p.name)).toEqual(['Mead', 'Fruit wine', 'Cider']);
+  });
+});
+
+describe('computeTasks', () => {
+  it('gives a new batch its weekly readings, its first racking and its milestones, with stable keys', () => {
+    const tasks = computeTasks(mead, facts('primary', []), { today: '2026-03-10', lookaheadDays: 30 });
+    expect(keysDue(tasks)).toEqual([
+      ['weekly-reading/primary.0', '2026-03-08'],
+      ['weekly-reading/primary.1', '2026-03-15'],
+      ['weekly-reading/primary.2', '2026-03-22'],
+      ['weekly-reading/primary.3', '2026-03-29'],
+      ['rack-off-primary/start', '2026-03-31'],
+      ['weekly-reading/primary.4', '2026-04-05'],
+      ['bulk-3-months/start', '2026-06-01'],
+      ['bulk-6-months/start', '2026-09-01'],
+      ['stabilise/start', '2027-01-01'],
+      ['bottle/start', '2027-03-01'],
+      ['bulk-12-months/start', '2027-03-01'],
+    ]);
+    const racking = tasks.find((t) => t.ruleId === 'rack-off-primary')!;
+    expect(racking).toMatchObject({
+      what: 'racking',
+      title: 'Rack off the lees',
+      showFrom: '2026-03-28',
+      reason: '30 days after the start (2026-03-01)',
+    });
+    expect(racking.note).toMatch(/^Common practice/);
+    // Computing again gives the same keys and dates.
+    expect(keysDue(computeTasks(mead, facts('primary', []), { today: '2026-03-10', lookaheadDays: 30 }))).toEqual(keysDue(tasks));
+  });
+
+  it('marks the open reading task done when a reading is logged in its window', () => {
+    const tasks = computeTasks(mead, facts('primary', [{ kind: 'reading', id: 'r1', on: '2026-03-09', sg: 1.05 }]), {
+      today: '2026-03-10',
+      lookaheadDays: 7,
+    });
+    expect(tasks.find((t) => t.key.endsWith('weekly-reading/primary.0'))!.doneByJournal).toEqual({ entryId: 'r1', on: '2026-03-09' });
+    expect(tasks.find((t) => t.key.endsWith('weekly-reading/primary.1'))!.doneByJournal).toBeNull();
+  });
+
+  it('keeps only the latest missed task of a kind open (older ones are moot)', () => {
+    const tasks = computeTasks(mead, facts('primary', []), { today: '2026-03-20', lookaheadDays: 3 });
+    expect(keysDue(tasks).filter(([k]) => k!.startsWith('weekly-reading'))).toEqual([
+      ['weekly-reading/primary.1', '2026-03-15'],
+      ['weekly-reading/primary.2', '2026-03-22'],
+    ]);
+  });
+
+  it('completes the racking task with a racking, which anchors a headspace check 3 days on and a re-rack 90 days on', () => {
+    const events: FactEvent[] = [{ kind: 'racking', id: 'rk1', on: '2026-04-02' }];
+    const tasks = computeTasks(mead, facts('secondary', events), { today: '2026-04-03', lookaheadDays: 30 });
+    expect(tasks.find((t) => t.ruleId === 'rack-off-primary')!.doneByJournal).toEqual({ entryId: 'rk1', on: '2026-04-02' });
+    expect(keysDue(tasks.filter((t) => t.what === 'headspace-check' || t.ruleId === 're-rack'))).toEqual([
+      ['headspace-after-racking/rk1', '2026-04-05'],
+      ['headspace-monthly/racked.0', '2026-05-02'],
+      ['re-rack/rk1', '2026-07-01'],
+    ]);
+    // Primary ended with the racking: no reading task falls after it.
+    expect(tasks.filter((t) => t.ruleId === 'weekly-reading').every((t) => t.dueOn < '2026-04-02')).toBe(true);
+  });
+
+  it('reminds to take an addition out on its take-out date, and a removal completes it', () => {
+    const oak: FactEvent = { kind: 'addition', id: 'oak1', on: '2026-05-01', category: 'oak', name: 'Oak cubes', removeOn: '2026-05-15' };
+    const racked: FactEvent = { kind: 'racking', id: 'rk1', on: '2026-04-02' };
+    const before = computeTasks(mead, facts('secondary', [racked, oak]), { today: '2026-05-10', lookaheadDays: 10 });
+    expect(before.find((t) => t.ruleId === 'oak-out')).toMatchObject({
+      key: `${B}/oak-out/oak1`,
+      title: 'Take out Oak cubes',
+      dueOn: '2026-05-15',
+      showFrom: '2026-05-13',
+      doneByJournal: null,
+    });
+    // Oak checks every 3 days from 1 May: 4, 7, 10 (today), 13, 16, 19 May; the missed 4th and 7th are moot.
+    expect(before.filter((t) => t.ruleId === 'oak-check').map((t) => t.dueOn)).toEqual(['2026-05-10', '2026-05-13', '2026-05-16', '2026-05-19']);
+
+    const removed: FactEvent = { kind: 'removed', id: 'out1', on: '2026-05-12', additionId: 'oak1' };
+    const after = computeTasks(mead, facts('secondary', [racked, oak, removed]), { today: '2026-05-12', lookaheadDays: 10 });
+    expect(after.find((t) => t.ruleId === 'oak-out')!.doneByJournal).toEqual({ entryId: 'out1', on: '2026-05-12' });
+    // With the oak out, no check is left, not even the missed one of 10 May.
+    expect(after.filter((t) => t.ruleId === 'oak-check').map((t) => t.dueOn)).toEqual([]);
+  });
+
+  it('asks for a racking once the gravity has held within 0.001 for 5 days', () => {
+    const readings: FactEvent[] = [
+      { kind: 'reading', id: 'a', on: '2026-03-08', sg: 1.02 },
+      { kind: 'reading', id: 'b', on: '2026-03-10', sg: 1.0 },
+      { kind: 'reading', id: 'c', on: '2026-03-13', sg: 0.999 },
+      { kind: 'reading', id: 'd', on: '2026-03-15', sg: 0.999 },
+    ];
+    const tasks = computeTasks(mead, facts('primary', readings), { today: '2026-03-16', lookaheadDays: 0 });
+    expect(keysDue(tasks.filter((t) => t.ruleId === 'rack-when-held'))).toEqual([['rack-when-held/primary.held', '2026-03-15']]);
+  });
+
+  it('dates month rules at the month end (31 January + 1 month = 28 February)', () => {
+    const monthly = rules({
+      id: 'm',
+      what: 'milestone',
+      when: { type: 'after', anchor: 'start', after: { count: 1, unit: 'months' } },
+      showDaysAhead: 0,
+    });
+    expect(computeTasks(monthly, facts('primary', [], '2026-01-31'), { today: '2026-02-01', lookaheadDays: 0 })[0]!.dueOn).toBe('2026-02-28');
+  });
+
+  it('gives bottle milestones from the bottling date and nothing to a finished batch', () => {
+    const events: FactEvent[] = [
+      { kind: 'racking', id: 'r1', on: '2026-04-01' },
+      { kind: 'racking', id: 'r2', on: '2026-07-01' },
+      { kind: 'bottled', id: 'bt', on: '2026-08-31' },
+    ];
+    const tasks = computeTasks(mead, facts('bottled', events), { today: '2026-09-01', lookaheadDays: 0 });
+    // The bulk milestones ended with the bottling: the missed one of 3 months is moot.
+    expect(keysDue(tasks.filter((t) => t.what === 'milestone' && !t.doneByJournal))).toEqual([
+      ['bottle-6-months/bt', '2027-02-28'],
+      ['bottle-12-months/bt', '2027-08-31'],
+    ]);
+    expect(tasks.some((t) => t.what === 'headspace-check' && t.dueOn > '2026-08-31')).toBe(false);
+    expect(computeTasks(mead, facts('finished', events), { today: '2026-09-01', lookaheadDays: 0 })).toEqual([]);
+  });
+});
+
+describe('plan rules: bad input in words a maker reads', () => {
+  const issues = (input: unknown) => planRuleSchema.safeParse(input).error?.issues.map((i) => [i.path.join('.'), i.message]) ?? [];
+  const base = { id: 'r', what: 'reading', showDaysAhead: 0 };
+
+  it('refuses a negative count, a zero repeat and anything over ten years', () => {
+    expect(issues({ ...base, when: { type: 'after', anchor: 'start', after: { count: -1, unit: 'days' } } })).toEqual([
+      ['when.after.count', 'cannot be negative'],
+    ]);
+    expect(issues({ ...base, when: { type: 'every', every: { count: 0, unit: 'days' }, while: 'primary' } })).toEqual([
+      ['when.every.count', 'must be at least 1'],
+    ]);
+    expect(issues({ ...base, when: { type: 'after', anchor: 'start', after: { count: 121, unit: 'months' } } })).toEqual([
+      ['when.after.count', 'at most ten years'],
+    ]);
+    expect(issues({ ...base, when: { type: 'after', anchor: 'start', after: { count: 120, unit: 'months' } } })).toEqual([]);
+  });
+
+  it('refuses an unknown kind of task and a rule that can never fire', () => {
+    expect(issues({ ...base, what: 'dance', when: { type: 'after', anchor: 'start', after: { count: 1, unit: 'days' } } })[0]![0]).toBe('what');
+    expect(
+      issues({ ...base, when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'bulk-ageing' }, until: { stage: 'secondary' } }),
+    ).toEqual([['until', 'this rule can never fire: it starts in bulk-ageing, after it would end']]);
+    expect(
+      issues({ ...base, when: { type: 'after', anchor: 'bottling', after: { count: 1, unit: 'days' } }, until: { event: 'bottling' } })[0]![0],
+    ).toBe('until');
+  });
+});
