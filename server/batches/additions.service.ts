@@ -1,9 +1,10 @@
 import type { EntityManager } from 'typeorm';
 import type { z } from 'zod';
-import { CAUTION_BOTTLE_PRESSURE, CAUTION_SORBATE, CAUTION_SULFITES } from '../../shared/calc';
+import { CAUTION_BOTTLE_PRESSURE, CAUTION_SORBATE, CAUTION_SULFITES, spiceCaution } from '../../shared/calc';
 import type { OperationResult } from '../../shared/schemas/batch-detail';
 import type { additionRequestSchema, removalRequestSchema } from '../../shared/schemas/journal';
 import { requireRole, type Actor } from '../core/actor';
+import type { Batch } from '../entities/batch.entity';
 import { ConflictError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
 import { correctedEntry, hasStabiliser, removalOf } from '../journal/journal-queries';
@@ -16,8 +17,11 @@ const SULFITE = /sul(f|ph)ite|campden/i;
 const SORBATE = /sorbate/i;
 
 /** Cautions that belong beside this addition: sulfites, sorbate, sweetening an unstabilised batch. */
-async function additionCautions(tx: EntityManager, batchId: string, request: AdditionRequest): Promise<string[]> {
+async function additionCautions(tx: EntityManager, batch: Batch, request: AdditionRequest): Promise<string[]> {
+  const batchId = batch.id;
   const cautions: string[] = [];
+  const spice = request.category === 'spice' ? spiceCaution(request.name, batch.stage) : null;
+  if (spice) cautions.push(spice);
   if (request.category === 'stabiliser' && SULFITE.test(request.name)) cautions.push(CAUTION_SULFITES);
   if (request.category === 'stabiliser' && SORBATE.test(request.name)) cautions.push(CAUTION_SORBATE);
   if (request.category === 'sweetener' && !(await hasStabiliser(tx, batchId))) cautions.push(CAUTION_BOTTLE_PRESSURE);
@@ -33,7 +37,7 @@ export function addAddition(actor: Actor, tx: EntityManager, batchId: string, re
   requireRole(actor, 'hand');
   const vessels = request.vesselId ? [{ vesselId: request.vesselId }] : [];
   return onBatch(actor, tx, batchId, { vessels, needsVessels: true }, async ({ tx, batch, at }) => {
-    const warnings = await additionCautions(tx, batch.id, request);
+    const warnings = await additionCautions(tx, batch, request);
     const entry = await appendEntry(
       tx,
       actor,

@@ -1,7 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import {
-  abvHighGravity,
+  abvBy,
   bottlesFrom,
   CalcInputError,
   CAUTION_BOTTLE_PRESSURE,
@@ -54,7 +54,7 @@ function judgeFermentation(batch: Batch, readings: GravityReading[], now: Date):
 function abvEstimate(og: number | null, last: GravityReading | undefined): number | null {
   if (og === null || !last) return null;
   try {
-    return Math.round(abvHighGravity(og, last.sg) * 10) / 10;
+    return Math.round(abvBy(og, last.sg) * 10) / 10;
   } catch (error) {
     if (error instanceof CalcInputError) return null;
     throw error;

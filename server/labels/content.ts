@@ -1,4 +1,4 @@
-import { abvHighGravity, formatVolume, type UnitSystem } from '../../shared/calc';
+import { ABV_FORMULA_LABELS, abvBy, DEFAULT_ABV_FORMULA, formatVolume, type UnitSystem } from '../../shared/calc';
 import { BATCH_KIND_LABELS } from '../../shared/schemas/batches';
 import type { LabelItem } from './types';
 
@@ -12,23 +12,23 @@ export function labelDate(iso: string): string {
 
 /** The printed ABV: always marked as an estimate; "—" when unknown. */
 export function abvText(abv: number | null): string {
-  return abv === null || !Number.isFinite(abv) ? 'ABV —' : `ABV ≈ ${abv.toFixed(1)} % (est.)`;
+  return abv === null || !Number.isFinite(abv) ? 'ABV —' : `ABV ≈ ${abv.toFixed(1)} % (est., ${ABV_FORMULA_LABELS[DEFAULT_ABV_FORMULA]})`;
 }
 
 /**
- * Current ABV estimate by the high-gravity formula, from the original gravity and the latest
+ * Current ABV estimate by the default formula (shared/calc DEFAULT_ABV_FORMULA), from the original gravity and the latest
  * (temperature-corrected) reading; null when either is missing or the pair is impossible.
  */
 export function currentAbv(og: number | null, latestSg: number | null): number | null {
   if (og === null || latestSg === null || latestSg > og) return null;
   try {
-    return Math.round(abvHighGravity(og, latestSg) * 10) / 10;
+    return Math.round(abvBy(og, latestSg) * 10) / 10;
   } catch {
     return null;
   }
 }
 
-const kindLabel = (kind: string | null) => (kind ? (BATCH_KIND_LABELS as Record<string, string>)[kind] ?? kind : '');
+const kindLabel = (kind: string | null) => (kind ? ((BATCH_KIND_LABELS as Record<string, string>)[kind] ?? kind) : '');
 const capitalised = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const bottleSize = (ml: number) => formatVolume(ml / 1000, 'metric');
 

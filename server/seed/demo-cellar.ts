@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import { abvHighGravity, casesFrom, correctGravity } from '../../shared/calc';
+import { abvBy, casesFrom, correctGravity } from '../../shared/calc';
 import type { JournalPayload } from '../../shared/schemas/journal';
 import type { Actor } from '../core/actor';
 import { BatchParent } from '../entities/batch-parent.entity';
@@ -241,7 +241,7 @@ export async function seedDemoRecords(tx: EntityManager, people: { keeper: Actor
       closure: 'crown-cap',
       carbonation: 'still',
       sulfiteAdded: true,
-      abvEstimate: Number(abvHighGravity(1.055, 0.999).toFixed(1)),
+      abvEstimate: Number(abvBy(1.055, 0.999).toFixed(1)),
       note: 'Still, dry, a touch of tannin.',
     });
     const { cases, loose } = casesFrom(bottleCount, perCase);

@@ -31,12 +31,19 @@ export function daysBetween(a: Date | string, b: Date | string): number {
  */
 export function addMonths(date: Date | string, months: number): Date {
   const d = requireDate(date, 'date', 'Date');
-  const m = requireInteger(months, 'months', 'Months', 0, 12_000);
+  return monthsLater(d, requireInteger(months, 'months', 'Months', 0, 12_000), 'months');
+}
+
+/** The months-later date; `field` is blamed when it falls past the last date a Date can hold. */
+function monthsLater(d: Date, m: number, field: string): Date {
   const y = d.getUTCFullYear();
   const targetMonth = d.getUTCMonth() + m;
   const lastDay = new Date(Date.UTC(y, targetMonth + 1, 0)).getUTCDate();
   const out = new Date(d.getTime());
   out.setUTCFullYear(y, targetMonth, Math.min(d.getUTCDate(), lastDay));
+  if (Number.isNaN(out.getTime())) {
+    throw new CalcInputError(field, `${m} months after ${d.toISOString().split('T')[0]} is past the last date that can be kept (year 275760).`);
+  }
   return out;
 }
 
@@ -66,7 +73,7 @@ export function ageMilestones(
   if (!Array.isArray(months)) throw new CalcInputError('months', 'Milestones must be a list of month counts.');
   return months.map((m, i) => {
     const whole = requireInteger(m, `months[${i}]`, `Milestone ${i + 1}`, 1, 1200);
-    const date = addMonths(s, whole);
+    const date = monthsLater(s, whole, `months[${i}]`);
     return { months: whole, date, reached: n.getTime() >= date.getTime() };
   });
 }

@@ -1,7 +1,7 @@
 /**
  * Bottles and cases from a volume.
  */
-import { CalcInputError, requireInteger, requireNonNegative, requirePositive, showNumber } from './guards';
+import { CalcInputError, requireAtLeast, requireInteger, requireNonNegative, showNumber } from './guards';
 
 /** Bottles per case when none is given: the usual 12-bottle wine case. */
 export const DEFAULT_BOTTLES_PER_CASE = 12;
@@ -19,12 +19,12 @@ export interface BottlesFromInput {
 /**
  * Full bottles that a volume fills, and what is left over.
  * @param input.volumeL - litres available to bottle
- * @param input.bottleMl - bottle size in mL (e.g. 750)
+ * @param input.bottleMl - bottle size in mL (e.g. 750; at least 1)
  * @param input.lossL - litres lost to lees, siphon and sampling (default 0)
  */
 export function bottlesFrom(input: BottlesFromInput): { bottles: number; remainderMl: number } {
   const volume = requireNonNegative(input.volumeL, 'volumeL', 'Volume', ' L');
-  const bottleMl = requirePositive(input.bottleMl, 'bottleMl', 'Bottle size', ' mL');
+  const bottleMl = requireAtLeast(input.bottleMl, 'bottleMl', 'Bottle size', 1, ' mL');
   const loss = requireNonNegative(input.lossL ?? 0, 'lossL', 'Loss', ' L');
   if (loss > volume) {
     throw new CalcInputError(
@@ -35,6 +35,10 @@ export function bottlesFrom(input: BottlesFromInput): { bottles: number; remaind
   // Work in microlitres-rounded millilitres so 22.5 L / 750 mL is exactly 30, not 29.
   const usableMl = Math.round((volume - loss) * 1e6) / 1e3;
   const bottles = Math.floor(usableMl / bottleMl + 1e-9);
+  // Past 2⁵³ bottles (or an overflow to Infinity) a count is no longer exact.
+  if (!Number.isSafeInteger(bottles)) {
+    throw new CalcInputError('volumeL', `Volume (${showNumber(volume)} L) is too large to count in bottles.`);
+  }
   const remainderMl = Math.max(0, Math.round((usableMl - bottles * bottleMl) * 1e3) / 1e3);
   return { bottles, remainderMl };
 }

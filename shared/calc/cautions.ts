@@ -31,6 +31,10 @@ export const CAUTION_GLASS =
 export const CAUTION_SANITISER =
   'Sanitiser concentrates are acids or oxidisers. Follow the maker’s dilution, never mix products, and protect your eyes and skin.';
 
+/** Beside adding a strongly antimicrobial spice (cinnamon, clove…) to a batch still in primary. */
+export const CAUTION_SPICE_IN_PRIMARY =
+  'Cinnamon, clove and similar spices are strongly antimicrobial: added during primary they can slow or stop the yeast. They are usually added in secondary (common practice).';
+
 /** Every caution by key, for screens that list them. */
 export const CAUTIONS = {
   estimate: CAUTION_ESTIMATE,
@@ -40,4 +44,5 @@ export const CAUTIONS = {
   legalLimits: CAUTION_LEGAL_LIMITS,
   glass: CAUTION_GLASS,
   sanitiser: CAUTION_SANITISER,
+  spiceInPrimary: CAUTION_SPICE_IN_PRIMARY,
 } as const;

@@ -15,12 +15,13 @@ export const UNIT_SYSTEMS: readonly UnitSystem[] = ['metric', 'us'];
 /**
  * Rounds to a sensible number of decimals for the size of the value and drops
  * trailing zeros, always with a '.' decimal point.
- * @param value - the number to show
+ * @param value - the number to show (finite)
  */
 export function tidyNumber(value: number): string {
-  const abs = Math.abs(value);
+  const n = requireFinite(value, 'value', 'Number');
+  const abs = Math.abs(n);
   const decimals = abs < 10 ? 2 : abs < 100 ? 1 : 0;
-  const fixed = value.toFixed(decimals);
+  const fixed = n.toFixed(decimals);
   const trimmed = fixed.includes('.') ? fixed.replace(/\.?0+$/, '') : fixed;
   return trimmed === '-0' ? '0' : trimmed;
 }
@@ -48,10 +49,11 @@ export function formatVolume(litres: number, system: UnitSystem): string {
  */
 export function formatTemperature(celsius: number, system: UnitSystem): string {
   const s = requireOneOf(system, UNIT_SYSTEMS, 'system', 'Unit system');
-  const c = requireFinite(celsius, 'celsius', 'Temperature');
-  const value = s === 'metric' ? c : fahrenheitFrom(c);
-  const shown = String(Math.round(value * 10) / 10);
-  return `${shown === '-0' ? '0' : shown} °${s === 'metric' ? 'C' : 'F'}`;
+  // Converting checks the temperature is real on both scales (finite, not below absolute zero).
+  const f = fahrenheitFrom(celsius);
+  const value = s === 'metric' ? celsius : f;
+  // toFixed, unlike value × 10, cannot overflow; Number() drops a trailing ".0" and String(-0) is "0".
+  return `${String(Number(value.toFixed(1)))} °${s === 'metric' ? 'C' : 'F'}`;
 }
 
 /**

@@ -3,13 +3,23 @@
  *
  * Sugar in a litre of must = °Brix/100 × SG × density of water at 20 °C, with
  * °Brix from the sucrose table fit in gravity.ts and water density from
- * temperature.ts. Honey is counted by its dry matter, taken to raise gravity
- * as sucrose does by mass (the sugars of honey and sucrose give solutions of
- * nearly the same density at equal % by mass).
+ * temperature.ts. Sucrose counts by its own mass. Honey counts as the sucrose
+ * that gives the makers' figure of 35 gravity points per pound in a US gallon
+ * (common practice), scaled by its dry matter when its moisture is known.
  */
 import { sgToBrix } from './gravity';
-import { CalcInputError, GRAVITY_MAX, requireGravity, requireNonNegative, requireOneOf, showNumber } from './guards';
+import {
+  CalcInputError,
+  GRAVITY_MAX,
+  requireGravity,
+  requireNonNegative,
+  requireOneOf,
+  requireRange,
+  showNumber,
+} from './guards';
+import { solveRising } from './solve';
 import { waterDensity } from './temperature';
+import { KILOGRAMS_PER_POUND, LITRES_PER_US_GALLON } from './units';
 
 /** Fermentable sources the calculator knows. */
 export type FermentableSource = 'honey' | 'sucrose';
@@ -17,14 +27,28 @@ export type FermentableSource = 'honey' | 'sucrose';
 export const FERMENTABLE_SOURCES: readonly FermentableSource[] = ['honey', 'sucrose'];
 
 /**
- * Dry matter of honey by mass: 1 − 0.171, from 17.1 g water per 100 g in the
- * USDA FoodData Central (SR Legacy) entry for honey. Real honeys run 15–20 % water.
+ * Gravity points one pound of honey gives when made up to one US gallon: 35, the figure mead
+ * makers work with (common practice; quoted figures run 35–40, and 35 matches what they measure).
  */
-export const HONEY_SOLIDS_FRACTION = 0.829;
+export const HONEY_POINTS_PER_LB_PER_US_GAL = 35;
 
-/** Sugar-equivalent mass per kilogram of each source. */
-export const SUGAR_EQUIVALENT: Record<FermentableSource, number> = {
-  honey: HONEY_SOLIDS_FRACTION,
+/**
+ * Water in a typical honey, % by mass: 17.1 g per 100 g in the USDA FoodData Central
+ * (SR Legacy) entry for honey. The 35-point figure is taken to be for such a honey.
+ */
+export const HONEY_MOISTURE_PERCENT = 17.1;
+/** Dry matter of a typical honey by mass, 1 − 0.171. */
+export const HONEY_SOLIDS_FRACTION = 1 - HONEY_MOISTURE_PERCENT / 100;
+/** Honey moisture accepted, %: the Codex honey standard allows at most 20 % (23 % for heather), from memory; 12 % is drier than honey comes. */
+export const HONEY_MOISTURE_RANGE = { min: 12, max: 25 } as const;
+
+/** Sucrose-equivalent mass per kilogram of each source (honey of typical moisture). */
+export const SUGAR_EQUIVALENT: Readonly<Record<FermentableSource, number>> = {
+  // The sucrose that a pound of honey stands for: the sugar of a 1.035 must in one US gallon.
+  // Worked out when read, not when the module loads, so a load never runs the input checks.
+  get honey() {
+    return (sugarAt(1 + HONEY_POINTS_PER_LB_PER_US_GAL / 1000) * LITRES_PER_US_GALLON) / KILOGRAMS_PER_POUND;
+  },
   sucrose: 1,
 };
 
@@ -33,10 +57,12 @@ export const SUGAR_EQUIVALENT: Record<FermentableSource, number> = {
  * @param sg - specific gravity at 20/20 °C
  */
 export function sugarPerLitre(sg: number): number {
-  const g = requireGravity(sg, 'sg', 'Specific gravity');
-  if (g <= 1) return 0;
-  const brix = Math.max(0, sgToBrix(g));
-  return (brix / 100) * g * (waterDensity(20) / 1000);
+  return sugarAt(requireGravity(sg, 'sg', 'Specific gravity'));
+}
+
+function sugarAt(sg: number): number {
+  if (sg <= 1) return 0;
+  return (sgToBrix(sg) / 100) * sg * (waterDensity(20) / 1000);
 }
 
 /** Options for fermentableForGravity. */
@@ -49,6 +75,8 @@ export interface FermentableForGravityInput {
   startOg?: number;
   /** What is being added. */
   source: FermentableSource;
+  /** The honey's water content, % by mass, when known (default 17.1); ignored for sucrose. */
+  honeyMoisturePercent?: number;
 }
 
 /**
@@ -57,20 +85,21 @@ export interface FermentableForGravityInput {
  * @param input.targetOg - the gravity wanted
  * @param input.startOg - gravity before the addition (default 1.000)
  * @param input.source - 'honey' or 'sucrose'
+ * @param input.honeyMoisturePercent - the honey's water content in % (12–25; default 17.1)
  */
 export function fermentableForGravity(input: FermentableForGravityInput): number {
   const volume = requireNonNegative(input.volumeL, 'volumeL', 'Must volume', ' L');
   const target = requireGravity(input.targetOg, 'targetOg', 'Target gravity');
   const start = requireGravity(input.startOg ?? 1, 'startOg', 'Starting gravity');
-  const source = requireOneOf(input.source, FERMENTABLE_SOURCES, 'source', 'Fermentable');
+  const equivalent = sugarEquivalent(input.source, input.honeyMoisturePercent);
   if (target < start) {
     throw new CalcInputError(
       'targetOg',
       `Target gravity (${showNumber(target, 3)}) is below the starting gravity (${showNumber(start, 3)}); adding sugar cannot lower it.`,
     );
   }
-  const sugarKg = (sugarPerLitre(target) - sugarPerLitre(start)) * volume;
-  return sugarKg / SUGAR_EQUIVALENT[source];
+  const sugarKg = (sugarAt(target) - sugarAt(start)) * volume;
+  return sugarKg / equivalent;
 }
 
 /** Options for gravityFromFermentable. */
@@ -83,6 +112,8 @@ export interface GravityFromFermentableInput {
   startOg?: number;
   /** What is being added. */
   source: FermentableSource;
+  /** The honey's water content, % by mass, when known (default 17.1); ignored for sucrose. */
+  honeyMoisturePercent?: number;
 }
 
 /**
@@ -91,6 +122,7 @@ export interface GravityFromFermentableInput {
  * @param input.kg - kilograms added
  * @param input.startOg - gravity before the addition (default 1.000)
  * @param input.source - 'honey' or 'sucrose'
+ * @param input.honeyMoisturePercent - the honey's water content in % (12–25; default 17.1)
  */
 export function gravityFromFermentable(input: GravityFromFermentableInput): number {
   const volume = requireNonNegative(input.volumeL, 'volumeL', 'Must volume', ' L');
@@ -98,19 +130,33 @@ export function gravityFromFermentable(input: GravityFromFermentableInput): numb
   const kg = requireNonNegative(input.kg, 'kg', 'Amount added', ' kg');
   const start = requireGravity(input.startOg ?? 1, 'startOg', 'Starting gravity');
   const source = requireOneOf(input.source, FERMENTABLE_SOURCES, 'source', 'Fermentable');
-  const wanted = sugarPerLitre(start) + (kg * SUGAR_EQUIVALENT[source]) / volume;
-  if (wanted > sugarPerLitre(GRAVITY_MAX)) {
+  const wanted = sugarAt(start) + (kg * sugarEquivalent(source, input.honeyMoisturePercent)) / volume;
+  // A part in 10¹² of slack, so the amount worked out for 1.200 itself is accepted back.
+  if (wanted > sugarAt(GRAVITY_MAX) * (1 + 1e-12)) {
     throw new CalcInputError(
       'kg',
       `That much ${source} would take the must above ${showNumber(GRAVITY_MAX, 3)}, beyond what yeast can ferment.`,
     );
   }
-  let lo = Math.max(start, 1);
-  let hi = GRAVITY_MAX;
-  for (let i = 0; i < 80; i++) {
-    const mid = (lo + hi) / 2;
-    if (sugarPerLitre(mid) < wanted) lo = mid;
-    else hi = mid;
-  }
-  return kg === 0 ? start : (lo + hi) / 2;
+  // No sugar below 1.000, so the answer lies between 1.000 and the highest gravity accepted.
+  return kg === 0 ? start : solveRising(sugarAt, wanted, 1, GRAVITY_MAX);
+}
+
+/**
+ * Sucrose-equivalent kilograms per kilogram of the source; a honey of known moisture counts
+ * in proportion to its dry matter against the typical honey the 35-point figure is for.
+ */
+function sugarEquivalent(source: unknown, honeyMoisturePercent: unknown): number {
+  const s = requireOneOf(source, FERMENTABLE_SOURCES, 'source', 'Fermentable');
+  if (s === 'sucrose' || honeyMoisturePercent == null) return SUGAR_EQUIVALENT[s];
+  const moisture = requireRange(
+    honeyMoisturePercent,
+    'honeyMoisturePercent',
+    'Honey moisture',
+    HONEY_MOISTURE_RANGE.min,
+    HONEY_MOISTURE_RANGE.max,
+    0,
+    ' %',
+  );
+  return (SUGAR_EQUIVALENT.honey * (1 - moisture / 100)) / HONEY_SOLIDS_FRACTION;
 }

@@ -4,8 +4,9 @@
  * An estimate only: real yeasts often pass their nominal tolerance, or stop
  * short of it when starved of nutrients or chilled.
  */
-import { ABV_FORMULAS, ABV_SIMPLE_FACTOR, abvBy, type AbvFormula } from './abv';
+import { ABV_FORMULAS, ABV_SIMPLE_FACTOR, abvBy, ballingAbvUnchecked, DEFAULT_ABV_FORMULA, type AbvFormula } from './abv';
 import { CalcInputError, GRAVITY_MIN, requireGravity, requireOneOf, requireRange, showNumber } from './guards';
+import { solveRising } from './solve';
 import { strengthOf, sweetnessOf, type Strength, type Sweetness } from './style-bands';
 
 /**
@@ -23,7 +24,7 @@ export interface PredictFinishInput {
   og: number;
   /** The yeast's stated alcohol tolerance, % ABV. */
   toleranceAbv: number;
-  /** ABV formula; 'high-gravity' by default because meads are strong musts. */
+  /** ABV formula; Balling by default (DEFAULT_ABV_FORMULA), the one that holds at mead gravities. */
   formula?: AbvFormula;
   /** Gravity reached if the sugar runs out (default DRY_FINISH_SG). */
   dryFg?: number;
@@ -47,7 +48,7 @@ export interface PredictedFinish {
  * Expected final gravity, ABV and sweetness from the original gravity and the yeast's tolerance.
  * @param input.og - original gravity
  * @param input.toleranceAbv - the yeast's alcohol tolerance in % ABV (0–25)
- * @param input.formula - ABV formula, 'high-gravity' (default) or 'simple'
+ * @param input.formula - ABV formula: 'balling' (default), 'simple' or 'high-gravity'
  * @param input.dryFg - gravity when the sugar runs out (default 0.996)
  */
 export function predictFinish(input: PredictFinishInput): PredictedFinish {
@@ -61,7 +62,7 @@ export function predictFinish(input: PredictFinishInput): PredictedFinish {
     0,
     ' % ABV',
   );
-  const formula = requireOneOf(input.formula ?? 'high-gravity', ABV_FORMULAS, 'formula', 'ABV formula');
+  const formula = requireOneOf(input.formula ?? DEFAULT_ABV_FORMULA, ABV_FORMULAS, 'formula', 'ABV formula');
   const dryFg = requireGravity(input.dryFg ?? DRY_FINISH_SG, 'dryFg', 'Dry finishing gravity');
 
   if (og <= dryFg) return result(og, 0, 'sugar');
@@ -75,22 +76,13 @@ export function predictFinish(input: PredictFinishInput): PredictedFinish {
  * by the chosen formula (the formula solved for FG).
  * @param og - original gravity
  * @param abv - % ABV reached
- * @param formula - 'high-gravity' (default) or 'simple'
+ * @param formula - 'balling' (default), 'simple' or 'high-gravity'
  */
-export function fgAtAbv(og: number, abv: number, formula: AbvFormula = 'high-gravity'): number {
+export function fgAtAbv(og: number, abv: number, formula: AbvFormula = DEFAULT_ABV_FORMULA): number {
   const o = requireGravity(og, 'og', 'Original gravity');
   const a = requireRange(abv, 'abv', 'Alcohol', 0, 100, 0, ' % ABV');
   const f = requireOneOf(formula, ABV_FORMULAS, 'formula', 'ABV formula');
-  let fg: number;
-  if (f === 'simple') {
-    fg = o - a / ABV_SIMPLE_FACTOR;
-  } else {
-    // ABV = k·(og·fg − fg²) with k = 76.08 / ((1.775 − og)·0.794); the larger
-    // root is the one between og/2 and og, i.e. the physically meaningful FG.
-    const k = 76.08 / ((1.775 - o) * 0.794);
-    const disc = o * o - (4 * a) / k;
-    fg = disc < 0 ? Number.NaN : (o + Math.sqrt(disc)) / 2;
-  }
+  const fg = f === 'balling' ? ballingFgAtAbv(o, a) : f === 'simple' ? o - a / ABV_SIMPLE_FACTOR : highGravityFgAtAbv(o, a);
   if (!(fg >= GRAVITY_MIN)) {
     throw new CalcInputError(
       'abv',
@@ -98,6 +90,21 @@ export function fgAtAbv(og: number, abv: number, formula: AbvFormula = 'high-gra
     );
   }
   return fg;
+}
+
+// ABV = k·(og·fg − fg²) with k = 76.08 / ((1.775 − og)·0.794); the larger root is the one
+// between og/2 and og, i.e. the physically meaningful FG. NaN when out of reach.
+function highGravityFgAtAbv(og: number, abv: number): number {
+  const k = 76.08 / ((1.775 - og) * 0.794);
+  return (og + Math.sqrt(og * og - (4 * abv) / k)) / 2;
+}
+
+// The Balling ABV falls steadily as FG rises, so its negative rises: solve between the lowest
+// accepted gravity and the OG. NaN when even the lowest gravity gives less alcohol.
+function ballingFgAtAbv(og: number, abv: number): number {
+  // A hair of slack: at the very bottom of the range the relations are flat to within rounding.
+  if (ballingAbvUnchecked(og, GRAVITY_MIN) < abv - 1e-9) return Number.NaN;
+  return solveRising((fg) => -ballingAbvUnchecked(og, fg), -abv, GRAVITY_MIN, og);
 }
 
 function result(fg: number, abv: number, limitedBy: PredictedFinish['limitedBy']): PredictedFinish {

@@ -16,6 +16,7 @@
  * the starting value.
  */
 import { CalcInputError, GRAVITY_MAX, GRAVITY_MIN, requireFinite, requireGravity, showNumber } from './guards';
+import { solveRising } from './solve';
 
 /**
  * °Brix from specific gravity (NBS C440 fit).
@@ -32,7 +33,7 @@ export function sgToBrix(sg: number): number {
  */
 export function brixToSg(brix: number): number {
   const b = requireScale(brix, 'brix', 'Brix', BRIX_MIN, BRIX_MAX);
-  return solveForGravity(brixPolynomial, b);
+  return solveRising(brixPolynomial, b, GRAVITY_MIN, GRAVITY_MAX);
 }
 
 /**
@@ -50,7 +51,7 @@ export function sgToPlato(sg: number): number {
  */
 export function platoToSg(plato: number): number {
   const p = requireScale(plato, 'plato', 'Plato', PLATO_MIN, PLATO_MAX);
-  return solveForGravity(platoPolynomial, p);
+  return solveRising(platoPolynomial, p, GRAVITY_MIN, GRAVITY_MAX);
 }
 
 /**
@@ -90,16 +91,4 @@ function requireScale(value: unknown, field: string, label: string, min: number,
     );
   }
   return Math.min(Math.max(n, min), max);
-}
-
-// Both fits rise steadily over the accepted range, so bisection always converges.
-function solveForGravity(f: (sg: number) => number, target: number): number {
-  let lo = GRAVITY_MIN;
-  let hi = GRAVITY_MAX;
-  for (let i = 0; i < 80; i++) {
-    const mid = (lo + hi) / 2;
-    if (f(mid) < target) lo = mid;
-    else hi = mid;
-  }
-  return (lo + hi) / 2;
 }

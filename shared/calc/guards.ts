@@ -32,13 +32,13 @@ export const GRAVITY_MAX = 1.2;
  * @param decimals - minimum decimals to show
  */
 export function showNumber(value: number, decimals = 0): string {
-  if (Number.isNaN(value)) return 'NaN';
-  if (!Number.isFinite(value)) return value > 0 ? 'Infinity' : '-Infinity';
+  // NaN and ±Infinity come out of toFixed as "NaN" and "±Infinity", which is what a message needs.
   const fixed = value.toFixed(Math.max(decimals, 0));
   // Keep extra digits only when the fixed form would hide a real difference.
   if (Number(fixed) === value) return fixed;
   const precise = String(Number(value.toPrecision(8)));
-  return precise.includes('.') && precise.split('.')[1].length < decimals ? fixed : precise;
+  const preciseDecimals = precise.includes('.') ? precise.split('.')[1].length : 0;
+  return preciseDecimals < decimals ? fixed : precise;
 }
 
 /**
@@ -127,6 +127,34 @@ export function requirePositive(value: unknown, field: string, label: string, un
 }
 
 /**
+ * Requires a finite number at or above `min`.
+ * @param value - the argument as received
+ * @param field - argument name reported in the error
+ * @param label - plain-words name of the value
+ * @param min - lowest accepted value
+ * @param unit - unit suffix for the message (leading space included)
+ */
+export function requireAtLeast(value: unknown, field: string, label: string, min: number, unit = ''): number {
+  const n = requireFinite(value, field, label);
+  if (n < min) {
+    throw new CalcInputError(field, `${label} must be at least ${showNumber(min)}${unit} (got ${showNumber(n)}${unit}).`);
+  }
+  return n;
+}
+
+/**
+ * Hands back a computed figure, or throws when finite input has overflowed into Infinity
+ * (1e308 gallons in litres): the error names the argument that made it too large.
+ * @param value - the computed figure
+ * @param field - the argument to blame
+ * @param label - plain-words name of that argument
+ */
+export function requireFiniteResult(value: number, field: string, label: string): number {
+  if (Number.isFinite(value)) return value;
+  throw new CalcInputError(field, `${label} is too large to work with.`);
+}
+
+/**
  * Requires a whole number within [min, max].
  * @param value - the argument as received
  * @param field - argument name reported in the error
@@ -166,7 +194,8 @@ export function requireInteger(
 export function requireDate(value: unknown, field: string, label: string): Date {
   let d: Date | null = null;
   if (value instanceof Date) d = new Date(value.getTime());
-  else if (typeof value === 'string' && value.trim() !== '') d = new Date(value);
+  // An empty or blank string makes an invalid Date, so it is rejected below.
+  else if (typeof value === 'string') d = new Date(value);
   if (d === null || Number.isNaN(d.getTime())) {
     throw new CalcInputError(field, `${label} must be a valid date (got ${describe(value)}).`);
   }
@@ -186,7 +215,7 @@ export function requireOneOf<T extends string>(
   field: string,
   label: string,
 ): T {
-  if (typeof value === 'string' && (allowed as readonly string[]).includes(value)) return value as T;
+  if ((allowed as readonly unknown[]).includes(value)) return value as T;
   throw new CalcInputError(
     field,
     `${label} must be one of ${allowed.map((a) => `'${a}'`).join(', ')} (got ${describe(value)}).`,

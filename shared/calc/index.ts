@@ -4,11 +4,7 @@
  * Every function throws CalcInputError (with `field` naming the argument) for
  * impossible input rather than returning NaN or Infinity.
  */
-export {
-  CalcInputError,
-  GRAVITY_MIN,
-  GRAVITY_MAX,
-} from './guards';
+export { CalcInputError, GRAVITY_MIN, GRAVITY_MAX } from './guards';
 
 export {
   type VolumeUnit,
@@ -56,10 +52,16 @@ export {
 export {
   type AbvFormula,
   ABV_FORMULAS,
+  DEFAULT_ABV_FORMULA,
+  ABV_FORMULA_LABELS,
   ABV_SIMPLE_FACTOR,
+  BALLING_EXTRACT_PER_ALCOHOL,
+  BALLING_REAL_EXTRACT_OE_SHARE,
+  ETHANOL_DENSITY_20C,
   POTENTIAL_ABV_FG,
   abvSimple,
   abvHighGravity,
+  abvBalling,
   abvBy,
   apparentAttenuation,
   potentialAbv,
@@ -70,6 +72,9 @@ export {
   type FermentableForGravityInput,
   type GravityFromFermentableInput,
   FERMENTABLE_SOURCES,
+  HONEY_POINTS_PER_LB_PER_US_GAL,
+  HONEY_MOISTURE_PERCENT,
+  HONEY_MOISTURE_RANGE,
   HONEY_SOLIDS_FRACTION,
   SUGAR_EQUIVALENT,
   sugarPerLitre,
@@ -103,6 +108,7 @@ export {
   type FermentationStateInput,
   STABLE_WINDOW_DAYS,
   STABLE_TOLERANCE_SG,
+  DRY_END_ALLOWANCE_SG,
   NEAR_FINISH_SG,
   TOLERANCE_MARGIN_ABV,
   SLOWING_RATE_SG_PER_DAY,
@@ -133,6 +139,7 @@ export {
   type VesselCandidate,
   type BestVesselInput,
   RACKING_STAGES,
+  RACKING_LOSS_FIXED_L,
   RACKING_LOSS_FRACTION,
   headspace,
   rackingLoss,
@@ -158,7 +165,10 @@ export {
   CAUTION_LEGAL_LIMITS,
   CAUTION_GLASS,
   CAUTION_SANITISER,
+  CAUTION_SPICE_IN_PRIMARY,
   CAUTIONS,
 } from './cautions';
 
-export { type SourceBasis, type FormulaSource, type FormulaKey, FORMULA_SOURCES } from './sources';
+export { ANTIMICROBIAL_SPICES, isAntimicrobialSpice, spiceCaution } from './spices';
+
+export { type SourceBasis, type FormulaSource, type FormulaKey, FORMULA_SOURCES, ABV_FORMULA_KEYS } from './sources';

@@ -1,6 +1,7 @@
 /**
  * Name and source of every computation, for the Calculators page footnotes.
  */
+import type { AbvFormula } from './abv';
 import type { CAUTIONS } from './cautions';
 
 /** How firmly a computation is grounded. */
@@ -25,18 +26,34 @@ const TANAKA =
   'Tanaka, Girard, Davis, Peuto & Bignell, "Recommended table for the density of water between 0 °C and 40 °C", Metrologia 38 (2001) 301–309';
 const NIST_UNITS = 'NIST Handbook 44, Appendix C, and NIST SP 811 (exact unit definitions)';
 const ZOECKLEIN = 'Zoecklein, Fugelsang, Gump & Nury, Wine Analysis and Production (1995)';
+const BALLING =
+  'C. J. N. Balling, Die Gärungschemie (Prague, 1854), as reviewed by Cutaia, Reid & Speers, J. Inst. Brew. 115 (2009) 318–327; °Plato by the ASBC-table fit; ethanol 789.24 kg/m³ at 20 °C (OIML R 22)';
+const HALL = 'First published by M. Hall, Zymurgy (1995); reprinted in R. Daniels, Designing Great Beers (1996)';
+const HONEY_35 = `${NBS_SUCROSE}; honey at 35 gravity points per pound per US gallon (mead makers' figure), scaled by its dry matter when its moisture is given (typical honey 17.1 % water, USDA FoodData Central)`;
 
 /** Footnote metadata, keyed by exported function name. */
 export const FORMULA_SOURCES = {
   abvSimple: {
-    name: 'Simple ABV: (OG − FG) × 131.25',
+    name: 'Linear ABV: (OG − FG) × 131.25 (understates strong musts)',
     source: 'Common linear approximation used throughout home brewing and winemaking',
     basis: 'common practice',
     cautions: ['estimate'],
   },
   abvHighGravity: {
-    name: 'High-gravity ABV: 76.08 (OG − FG) / (1.775 − OG) × FG / 0.794',
-    source: 'Ray Daniels, Designing Great Beers (Brewers Publications, 1996)',
+    name: 'High-gravity fit: 76.08 (OG − FG) / (1.775 − OG) × FG / 0.794 (overstates strong musts)',
+    source: HALL,
+    basis: 'published formula',
+    cautions: ['estimate'],
+  },
+  abvBalling: {
+    name: 'Balling ABV: real extract 0.1808 OE + 0.8192 AE; ABW = (OE − RE) / (2.0665 − 0.010665 OE); ABV = ABW × FG / 0.7907',
+    source: BALLING,
+    basis: 'published formula',
+    cautions: ['estimate'],
+  },
+  abvBy: {
+    name: 'ABV by the chosen formula (Balling unless another is named)',
+    source: `${BALLING}; or the linear formula, or the high-gravity fit (${HALL})`,
     basis: 'published formula',
     cautions: ['estimate'],
   },
@@ -47,8 +64,8 @@ export const FORMULA_SOURCES = {
     cautions: ['estimate'],
   },
   potentialAbv: {
-    name: 'Potential alcohol: ABV if fermented to 1.000 (high-gravity formula)',
-    source: 'Ray Daniels, Designing Great Beers (1996); FG 1.000 by the usual potential-alcohol convention',
+    name: 'Potential alcohol: ABV if fermented to 1.000 (Balling relations)',
+    source: `${BALLING}; FG 1.000 by the usual potential-alcohol convention`,
     basis: 'published formula',
     cautions: ['estimate'],
   },
@@ -75,15 +92,15 @@ export const FORMULA_SOURCES = {
     cautions: [],
   },
   fermentableForGravity: {
-    name: 'Honey or sugar for a target gravity (sucrose table; honey counted by its dry matter)',
-    source: `${NBS_SUCROSE}; honey water content from USDA FoodData Central (SR Legacy), honey: 17.1 g per 100 g`,
-    basis: 'published table',
+    name: 'Honey or sugar for a target gravity (sucrose table; honey at 35 points per lb per US gal)',
+    source: HONEY_35,
+    basis: 'common practice',
     cautions: ['estimate'],
   },
   gravityFromFermentable: {
-    name: 'Gravity reached by a honey or sugar addition',
-    source: `${NBS_SUCROSE}; honey water content from USDA FoodData Central (SR Legacy), honey: 17.1 g per 100 g`,
-    basis: 'published table',
+    name: 'Gravity reached by a honey or sugar addition (honey at 35 points per lb per US gal)',
+    source: HONEY_35,
+    basis: 'common practice',
     cautions: ['estimate'],
   },
   sugarPerLitre: {
@@ -93,14 +110,14 @@ export const FORMULA_SOURCES = {
     cautions: ['estimate'],
   },
   fgAtAbv: {
-    name: 'Gravity at which a must reaches a given ABV (high-gravity formula solved for FG)',
-    source: 'Ray Daniels, Designing Great Beers (1996)',
+    name: 'Gravity at which a must reaches a given ABV (Balling relations solved for FG)',
+    source: BALLING,
     basis: 'published formula',
     cautions: ['estimate'],
   },
   predictFinish: {
     name: 'Predicted finish: yeast stops at its tolerance or when the sugar runs out',
-    source: 'High-gravity ABV formula (Daniels 1996) solved for FG; dry finish 0.996 by common practice',
+    source: `Balling relations solved for FG (${BALLING}); dry finish 0.996 by common practice`,
     basis: 'common practice',
     cautions: ['estimate', 'bottlePressure'],
   },
@@ -117,8 +134,8 @@ export const FORMULA_SOURCES = {
     cautions: [],
   },
   fermentationState: {
-    name: 'Fermentation state from steady or falling gravity',
-    source: 'Cellar rule of a steady gravity over three days, against the predicted finish',
+    name: 'Fermentation state: steady three days and dry (to 1.004), or within 1 % ABV of the yeast’s tolerance by the lower of the linear and Balling figures; otherwise stuck',
+    source: 'Cellar rule of a steady gravity over three days; alcohol by the linear formula and the Balling relations',
     basis: 'common practice',
     cautions: ['estimate', 'bottlePressure'],
   },
@@ -153,8 +170,8 @@ export const FORMULA_SOURCES = {
     cautions: ['glass'],
   },
   rackingLoss: {
-    name: 'Racking loss: 8 % primary, 4 % secondary, 2 % later rackings',
-    source: 'Rule of thumb',
+    name: 'Racking loss: 0.03 L plus 4 % (primary), 2.5 % (secondary) or 1 % (later rackings) of the volume',
+    source: 'Makers’ figures: about half a cup from a one-gallon batch, a couple of cups from five gallons',
     basis: 'common practice',
     cautions: ['glass'],
   },
@@ -192,11 +209,24 @@ export const FORMULA_SOURCES = {
   },
   annualVolumeUsage: {
     name: 'Yearly volume made against a limit',
-    source: 'Limit set by the cellar; US federal reference 27 CFR 24.75(a): 100 gal (one adult) / 200 gal (two or more) per calendar year',
+    source: 'Limit set by the cellar; US federal reference 27 CFR 24.75(b): 100 gal (one adult) / 200 gal (two or more) per calendar year',
     basis: 'regulation',
     cautions: ['legalLimits'],
+  },
+  spiceCaution: {
+    name: 'Caution for cinnamon, clove and allspice added in primary',
+    source: 'Makers add strongly antimicrobial spices in secondary',
+    basis: 'common practice',
+    cautions: ['spiceInPrimary'],
   },
 } as const satisfies Record<string, FormulaSource>;
 
 /** Names of the computations that have footnote metadata. */
 export type FormulaKey = keyof typeof FORMULA_SOURCES;
+
+/** The footnote of each ABV formula, to name the source beside a figure. */
+export const ABV_FORMULA_KEYS: Readonly<Record<AbvFormula, FormulaKey>> = {
+  balling: 'abvBalling',
+  simple: 'abvSimple',
+  'high-gravity': 'abvHighGravity',
+};

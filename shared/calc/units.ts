@@ -5,7 +5,7 @@
  * US gallon is 231 cubic inches, the imperial gallon 4.54609 L, the
  * avoirdupois pound 0.45359237 kg.
  */
-import { CalcInputError, requireFinite, requireNonNegative, requireOneOf } from './guards';
+import { CalcInputError, requireFinite, requireFiniteResult, requireNonNegative, requireOneOf } from './guards';
 
 /** Volume units the cellar works in. */
 export type VolumeUnit = 'L' | 'mL' | 'US gal' | 'imp gal' | 'US fl oz';
@@ -54,7 +54,7 @@ const KILOGRAMS_PER: Record<MassUnit, number> = {
  */
 export function litresFrom(value: number, unit: VolumeUnit): number {
   const u = requireOneOf(unit, VOLUME_UNITS, 'unit', 'Volume unit');
-  return requireNonNegative(value, 'value', 'Volume') * LITRES_PER[u];
+  return requireFiniteResult(requireNonNegative(value, 'value', 'Volume') * LITRES_PER[u], 'value', 'Volume');
 }
 
 /**
@@ -64,7 +64,7 @@ export function litresFrom(value: number, unit: VolumeUnit): number {
  */
 export function litresTo(litres: number, unit: VolumeUnit): number {
   const u = requireOneOf(unit, VOLUME_UNITS, 'unit', 'Volume unit');
-  return requireNonNegative(litres, 'litres', 'Volume', ' L') / LITRES_PER[u];
+  return requireFiniteResult(requireNonNegative(litres, 'litres', 'Volume', ' L') / LITRES_PER[u], 'litres', 'Volume');
 }
 
 /**
@@ -74,6 +74,7 @@ export function litresTo(litres: number, unit: VolumeUnit): number {
  */
 export function kilogramsFrom(value: number, unit: MassUnit): number {
   const u = requireOneOf(unit, MASS_UNITS, 'unit', 'Mass unit');
+  // Every mass unit is a kilogram or less, so this cannot overflow.
   return requireNonNegative(value, 'value', 'Mass') * KILOGRAMS_PER[u];
 }
 
@@ -84,7 +85,7 @@ export function kilogramsFrom(value: number, unit: MassUnit): number {
  */
 export function kilogramsTo(kilograms: number, unit: MassUnit): number {
   const u = requireOneOf(unit, MASS_UNITS, 'unit', 'Mass unit');
-  return requireNonNegative(kilograms, 'kilograms', 'Mass', ' kg') / KILOGRAMS_PER[u];
+  return requireFiniteResult(requireNonNegative(kilograms, 'kilograms', 'Mass', ' kg') / KILOGRAMS_PER[u], 'kilograms', 'Mass');
 }
 
 /**
@@ -111,5 +112,5 @@ export function fahrenheitFrom(celsius: number): number {
   if (c < ABSOLUTE_ZERO_C) {
     throw new CalcInputError('celsius', `Temperature cannot be below absolute zero (got ${c} °C).`);
   }
-  return c * 1.8 + 32;
+  return requireFiniteResult(c * 1.8 + 32, 'celsius', 'Temperature');
 }

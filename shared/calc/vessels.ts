@@ -10,15 +10,19 @@ export type RackingStage = 'primary' | 'secondary' | 'ageing';
 export const RACKING_STAGES: readonly RackingStage[] = ['primary', 'secondary', 'ageing'];
 
 /**
- * Share of the volume expected to stay behind with the lees (common practice,
- * no published source): about 8 % off the heavy primary lees, 4 % at the
- * first secondary racking, 2 % off the light lees of later rackings. Fruit in
- * the primary can take far more; pass `lossFraction` to override.
+ * What stays behind at a racking: a fixed part (the siphon, its tube and the last of the
+ * liquid the cane cannot reach) plus a small share of the volume by stage, for the lees.
+ * Chosen so that a secondary racking reproduces what makers report (common practice): about
+ * half a cup from a one-gallon batch and a couple of cups from a five-gallon batch. The
+ * heavy primary lees hold more, the light lees of later rackings less. Fruit in the primary
+ * can take far more; pass `lossFraction` to use your own share instead.
  */
-export const RACKING_LOSS_FRACTION: Record<RackingStage, number> = {
-  primary: 0.08,
-  secondary: 0.04,
-  ageing: 0.02,
+export const RACKING_LOSS_FIXED_L = 0.03;
+/** Share of the volume left with the lees at each stage, on top of RACKING_LOSS_FIXED_L. */
+export const RACKING_LOSS_FRACTION: Readonly<Record<RackingStage, number>> = {
+  primary: 0.04,
+  secondary: 0.025,
+  ageing: 0.01,
 };
 
 /** Options for headspace. */
@@ -53,24 +57,25 @@ export interface RackingLossInput {
   volumeL: number;
   /** Which racking this is (default 'secondary'). */
   stage?: RackingStage;
-  /** Override of the expected loss share, 0–0.5. */
+  /** Your own loss share, 0–0.5, instead of the fixed part and the stage's share. */
   lossFraction?: number;
 }
 
 /**
- * Litres expected to stay behind on the lees at a racking (rule of thumb, common practice).
+ * Litres expected to stay behind at a racking: RACKING_LOSS_FIXED_L plus the stage's share of
+ * the volume (common practice), never more than the volume itself. With `lossFraction` the
+ * loss is simply that share of the volume.
  * @param input.volumeL - litres being racked
  * @param input.stage - 'primary', 'secondary' (default) or 'ageing'
- * @param input.lossFraction - your own loss share, 0–0.5, instead of the stage's
+ * @param input.lossFraction - your own loss share, 0–0.5, instead of the rule
  */
 export function rackingLoss(input: RackingLossInput): number {
   const volume = requireNonNegative(input.volumeL, 'volumeL', 'Volume', ' L');
   const stage = requireOneOf(input.stage ?? 'secondary', RACKING_STAGES, 'stage', 'Racking stage');
-  const fraction =
-    input.lossFraction == null
-      ? RACKING_LOSS_FRACTION[stage]
-      : requireRange(input.lossFraction, 'lossFraction', 'Loss share', 0, 0.5, 2);
-  return volume * fraction;
+  if (input.lossFraction != null) {
+    return volume * requireRange(input.lossFraction, 'lossFraction', 'Loss share', 0, 0.5, 2);
+  }
+  return Math.min(volume, RACKING_LOSS_FIXED_L + volume * RACKING_LOSS_FRACTION[stage]);
 }
 
 /** A vessel that could receive the racking. */

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { CAUTION_BOTTLE_PRESSURE, CAUTION_SULFITES, correctGravity, headspace } from '../../shared/calc';
+import { CAUTION_BOTTLE_PRESSURE, CAUTION_SULFITES, correctGravity, headspace, CAUTION_SPICE_IN_PRIMARY } from '../../shared/calc';
 import { batchDetailSchema, operationResultSchema } from '../../shared/schemas/batch-detail';
 import { batchInVessels, makeBatch } from '../helpers/batches';
 import { crewWithAgents, type Crew } from '../helpers/crew';
@@ -23,12 +23,23 @@ const oak = { category: 'oak', name: 'Medium toast oak cubes', amount: 30, unit:
 
 describe('additions and removals', () => {
   it('keeps oak on the "still in" list until its removal is recorded, once', async () => {
-    const { result, vessels: [vessel] } = await batchInVessels(ds, crew, [20]);
+    const {
+      result,
+      vessels: [vessel],
+    } = await batchInVessels(ds, crew, [20]);
     const added = await crew.as.hand.post(url(result.batch.id, 'additions')).send({ ...oak, vesselId: vessel.id });
     expect(added.status).toBe(201);
     const { batch, entryId } = operationResultSchema.parse(added.body);
     expect(batch.additionsIn).toEqual([{ entryId, name: 'Medium toast oak cubes', category: 'oak', removeOn: '2026-09-01' }]);
-    expect(batch.journal[0].payload).toEqual({ kind: 'addition', category: 'oak', name: 'Medium toast oak cubes', amount: 30, unit: 'g', vesselId: vessel.id, removeOn: '2026-09-01' });
+    expect(batch.journal[0].payload).toEqual({
+      kind: 'addition',
+      category: 'oak',
+      name: 'Medium toast oak cubes',
+      amount: 30,
+      unit: 'g',
+      vesselId: vessel.id,
+      removeOn: '2026-09-01',
+    });
 
     // Fruit with no removal date never shows as "still in".
     await crew.as.hand.post(url(result.batch.id, 'additions')).send({ category: 'fruit', name: 'Blackberries', amount: 2, unit: 'kg' }).expect(201);
@@ -56,25 +67,34 @@ describe('additions and removals', () => {
 
   it('adds the sulfite caution to a metabisulfite addition; sulfite in primary leaves the batch in primary', async () => {
     const { result } = await batchInVessels(ds, crew, [20]);
-    const res = await crew.as.hand.post(url(result.batch.id, 'additions')).send({ category: 'stabiliser', name: 'Potassium metabisulfite', amount: 1.1, unit: 'g' });
+    const res = await crew.as.hand
+      .post(url(result.batch.id, 'additions'))
+      .send({ category: 'stabiliser', name: 'Potassium metabisulfite', amount: 1.1, unit: 'g' });
     expect(res.status).toBe(201);
     expect(res.body.warnings).toEqual([CAUTION_SULFITES]);
     // Sulfiting a must before pitching is common practice; it is not the stabilising of a finished batch.
     expect(res.body.batch.stage).toBe('primary');
-    const spice = await crew.as.hand.post(url(result.batch.id, 'additions')).send({ category: 'spice', name: 'Cinnamon stick', amount: 1, unit: 'pc' });
-    expect(spice.body.warnings).toEqual([]);
+    // Cinnamon in primary can slow the yeast (common practice): the caution stands beside it.
+    const spice = await crew.as.hand
+      .post(url(result.batch.id, 'additions'))
+      .send({ category: 'spice', name: 'Cinnamon stick', amount: 1, unit: 'pc' });
+    expect(spice.body.warnings).toEqual([CAUTION_SPICE_IN_PRIMARY]);
   });
 
   it('warns about bottle pressure when sweetening a batch that was never stabilised', async () => {
     const { result } = await batchInVessels(ds, crew, [20]);
-    const res = await crew.as.hand.post(url(result.batch.id, 'additions')).send({ category: 'sweetener', name: 'Orange blossom honey', amount: 400, unit: 'g' });
+    const res = await crew.as.hand
+      .post(url(result.batch.id, 'additions'))
+      .send({ category: 'sweetener', name: 'Orange blossom honey', amount: 400, unit: 'g' });
     expect(res.status).toBe(201);
     expect(res.body.warnings).toEqual([CAUTION_BOTTLE_PRESSURE]);
   });
 
   it('refuses an addition into a vessel of another batch, to a batch in no vessel, and from a Guest', async () => {
     const { result } = await batchInVessels(ds, crew, [20]);
-    const { vessels: [theirs] } = await batchInVessels(ds, crew, [10]);
+    const {
+      vessels: [theirs],
+    } = await batchInVessels(ds, crew, [10]);
     expect((await crew.as.hand.post(url(result.batch.id, 'additions')).send({ ...oak, vesselId: theirs.id })).status).toBe(409);
     const gone = await makeBatch(ds, crew.cellar.id);
     expect((await crew.as.hand.post(url(gone.id, 'additions')).send(oak)).status).toBe(409);
@@ -88,12 +108,21 @@ describe('additions and removals', () => {
 
 describe('top-ups, degassing, tastings and notes', () => {
   it('tops a vessel up, bumping its volume and version, and refuses more than fits', async () => {
-    const { result, vessels: [vessel] } = await batchInVessels(ds, crew, [20], {}, { name: 'Demijohn 4', capacityL: 23 });
+    const {
+      result,
+      vessels: [vessel],
+    } = await batchInVessels(ds, crew, [20], {}, { name: 'Demijohn 4', capacityL: 23 });
     const before = await vesselRow(ds, vessel.id);
     const res = await crew.as.hand.post(url(result.batch.id, 'top-ups')).send({ vesselId: vessel.id, volumeL: 1, with: 'Spare must' });
     expect(res.status).toBe(201);
     expect(res.body.batch.volumeL).toBe(21);
-    expect(res.body.batch.journal[0].payload).toEqual({ kind: 'topped-up', vesselId: vessel.id, vesselName: 'Demijohn 4', volumeL: 1, with: 'Spare must' });
+    expect(res.body.batch.journal[0].payload).toEqual({
+      kind: 'topped-up',
+      vesselId: vessel.id,
+      vesselName: 'Demijohn 4',
+      volumeL: 1,
+      with: 'Spare must',
+    });
     // Still above the cellar's 5 % after this top-up, so it says so.
     const percent = Math.round(headspace({ capacityL: 23, volumeL: 21 }).percent);
     expect(res.body.warnings).toEqual([`Demijohn 4 has ${percent} % headspace — top up or use a smaller vessel to limit oxidation.`]);
@@ -104,7 +133,9 @@ describe('top-ups, degassing, tastings and notes', () => {
     const over = await crew.as.hand.post(url(result.batch.id, 'top-ups')).send({ vesselId: vessel.id, volumeL: 2.5, with: 'Water' });
     expect(over.status).toBe(409);
     expect(over.body.message).toBe('Demijohn 4 holds 21 L of 23 L; 2.5 L more will not fit (room for 2 L).');
-    const { vessels: [theirs] } = await batchInVessels(ds, crew, [10]);
+    const {
+      vessels: [theirs],
+    } = await batchInVessels(ds, crew, [10]);
     expect((await crew.as.hand.post(url(result.batch.id, 'top-ups')).send({ vesselId: theirs.id, volumeL: 1, with: 'Water' })).status).toBe(409);
     expect((await vesselRow(ds, vessel.id)).volume_l).toBe(21);
 
@@ -115,13 +146,22 @@ describe('top-ups, degassing, tastings and notes', () => {
   });
 
   it('records degassing, tastings and notes; tastings and notes also once the batch is in bottles only', async () => {
-    const { result, vessels: [vessel] } = await batchInVessels(ds, crew, [20]);
+    const {
+      result,
+      vessels: [vessel],
+    } = await batchInVessels(ds, crew, [20]);
     const degassed = await crew.as.hand.post(url(result.batch.id, 'degassings')).send({ vesselId: vessel.id, note: 'Wand, 3 minutes' });
     expect(degassed.status).toBe(201);
     expect(degassed.body.batch.journal[0].payload).toEqual({ kind: 'degassed', vesselId: vessel.id, note: 'Wand, 3 minutes' });
     const tasted = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ aroma: 'Honey and bramble', flavour: 'Dry, warm', score: 15.5 });
     expect(tasted.status).toBe(201);
-    expect(tasted.body.batch.journal[0].payload).toEqual({ kind: 'tasted', appearance: '', aroma: 'Honey and bramble', flavour: 'Dry, warm', score: 15.5 });
+    expect(tasted.body.batch.journal[0].payload).toEqual({
+      kind: 'tasted',
+      appearance: '',
+      aroma: 'Honey and bramble',
+      flavour: 'Dry, warm',
+      score: 15.5,
+    });
     const tooHigh = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ score: 21 });
     expect(tooHigh.status).toBe(400);
     expect(tooHigh.body.message).toBe('body.score: at most 20');
@@ -157,7 +197,9 @@ describe('amendments', () => {
     const { result } = await batchInVessels(ds, crew, [20]);
     const logged = await crew.as.hand.post(url(result.batch.id, 'readings')).send({ sg: 1.032, temperatureC: 20 }).expect(201);
     const readingId: string = logged.body.entryId;
-    const res = await crew.as.keeper.post(url(result.batch.id, `journal/${readingId}/amendments`)).send({ reason: 'Misread the scale', changes: { sg: 1.023, temperatureC: 26 } });
+    const res = await crew.as.keeper
+      .post(url(result.batch.id, `journal/${readingId}/amendments`))
+      .send({ reason: 'Misread the scale', changes: { sg: 1.023, temperatureC: 26 } });
     expect(res.status).toBe(201);
     const { batch, entryId } = operationResultSchema.parse(res.body);
     const expected = correctGravity(1.023, 26, 20);
@@ -176,7 +218,9 @@ describe('amendments', () => {
     expect(changes.correctedSg).toBeCloseTo(expected, 9);
 
     // A second amendment builds on the first: only the pH changes, the gravity stays corrected.
-    const more = await crew.as.hand.post(url(result.batch.id, `journal/${readingId}/amendments`)).send({ reason: 'Forgot the pH', changes: { ph: 3.4 } });
+    const more = await crew.as.hand
+      .post(url(result.batch.id, `journal/${readingId}/amendments`))
+      .send({ reason: 'Forgot the pH', changes: { ph: 3.4 } });
     expect(more.status).toBe(201);
     expect(more.body.batch.readings[0]).toMatchObject({ sg: 1.023, temperatureC: 26, ph: 3.4 });
     expect(more.body.batch.readings[0].correctedSg).toBeCloseTo(expected, 9);
@@ -187,24 +231,47 @@ describe('amendments', () => {
   it('corrects an addition’s name and removal date, a tasting and a note', async () => {
     const { result } = await batchInVessels(ds, crew, [20]);
     const added = await crew.as.hand.post(url(result.batch.id, 'additions')).send(oak).expect(201);
-    const fixed = await crew.as.hand.post(url(result.batch.id, `journal/${added.body.entryId}/amendments`)).send({ reason: 'Wrong oak', changes: { name: 'French oak spiral', removeOn: '2026-10-15' } });
+    const fixed = await crew.as.hand
+      .post(url(result.batch.id, `journal/${added.body.entryId}/amendments`))
+      .send({ reason: 'Wrong oak', changes: { name: 'French oak spiral', removeOn: '2026-10-15' } });
     expect(fixed.status).toBe(201);
-    expect(fixed.body.batch.additionsIn).toEqual([{ entryId: added.body.entryId, name: 'French oak spiral', category: 'oak', removeOn: '2026-10-15' }]);
+    expect(fixed.body.batch.additionsIn).toEqual([
+      { entryId: added.body.entryId, name: 'French oak spiral', category: 'oak', removeOn: '2026-10-15' },
+    ]);
     const removal = await crew.as.hand.post(url(result.batch.id, 'removals')).send({ additionEntryId: added.body.entryId }).expect(201);
     expect(removal.body.batch.journal[0].payload.name).toBe('French oak spiral');
 
     const tasted = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ score: 12 }).expect(201);
-    expect((await crew.as.hand.post(url(result.batch.id, `journal/${tasted.body.entryId}/amendments`)).send({ reason: 'Typo', changes: { score: 14, aroma: 'Pear' } })).status).toBe(201);
+    expect(
+      (
+        await crew.as.hand
+          .post(url(result.batch.id, `journal/${tasted.body.entryId}/amendments`))
+          .send({ reason: 'Typo', changes: { score: 14, aroma: 'Pear' } })
+      ).status,
+    ).toBe(201);
     const note = await crew.as.hand.post(url(result.batch.id, 'notes')).send({ text: 'Racked tomorow' }).expect(201);
-    expect((await crew.as.hand.post(url(result.batch.id, `journal/${note.body.entryId}/amendments`)).send({ reason: 'Spelling', changes: { text: 'Rack tomorrow' } })).status).toBe(201);
+    expect(
+      (
+        await crew.as.hand
+          .post(url(result.batch.id, `journal/${note.body.entryId}/amendments`))
+          .send({ reason: 'Spelling', changes: { text: 'Rack tomorrow' } })
+      ).status,
+    ).toBe(201);
   });
 
   it('refuses to amend volumes and vessel moves (409) and bad changes (400)', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [20]);
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [20]);
     const target = await sanitisedVessel(ds, crew.cellar.id);
-    const racked = await crew.as.hand.post(url(result.batch.id, 'rackings')).send({ from: [{ vesselId: source.id }], to: [{ vesselId: target.id, volumeL: 19 }] });
+    const racked = await crew.as.hand
+      .post(url(result.batch.id, 'rackings'))
+      .send({ from: [{ vesselId: source.id }], to: [{ vesselId: target.id, volumeL: 19 }] });
     expect(racked.status).toBe(201);
-    const amendRacking = await crew.as.hand.post(url(result.batch.id, `journal/${racked.body.entryId}/amendments`)).send({ reason: 'Wrong volume', changes: { lossL: 0.5 } });
+    const amendRacking = await crew.as.hand
+      .post(url(result.batch.id, `journal/${racked.body.entryId}/amendments`))
+      .send({ reason: 'Wrong volume', changes: { lossL: 0.5 } });
     expect(amendRacking.status).toBe(409);
     expect(amendRacking.body.message).toBe('Volumes and vessel moves cannot be amended; record a new operation instead.');
     const startedId = result.batch.journal[0].id;
@@ -232,7 +299,9 @@ describe('amendments', () => {
     expect((await amend({})).status).toBe(400);
     const amendment = await amend({ sg: 1.011 });
     expect(amendment.status).toBe(201);
-    const ofAmendment = await crew.as.hand.post(url(result.batch.id, `journal/${amendment.body.entryId}/amendments`)).send({ reason: 'Again', changes: { sg: 1.012 } });
+    const ofAmendment = await crew.as.hand
+      .post(url(result.batch.id, `journal/${amendment.body.entryId}/amendments`))
+      .send({ reason: 'Again', changes: { sg: 1.012 } });
     expect(ofAmendment.status).toBe(409);
     expect((await detailOf(result.batch.id)).readings[0].sg).toBe(1.011);
   });
@@ -241,9 +310,13 @@ describe('amendments', () => {
     const { result: mine } = await batchInVessels(ds, crew, [20]);
     const { result: theirs } = await batchInVessels(ds, crew, [20]);
     const note = await crew.as.hand.post(url(theirs.batch.id, 'notes')).send({ text: 'Theirs' }).expect(201);
-    const wrong = await crew.as.hand.post(url(mine.batch.id, `journal/${note.body.entryId}/amendments`)).send({ reason: 'Sneaky', changes: { text: 'Mine now' } });
+    const wrong = await crew.as.hand
+      .post(url(mine.batch.id, `journal/${note.body.entryId}/amendments`))
+      .send({ reason: 'Sneaky', changes: { text: 'Mine now' } });
     expect(wrong.status).toBe(404);
-    const guest = await crew.as.guest.post(url(theirs.batch.id, `journal/${note.body.entryId}/amendments`)).send({ reason: 'Sneaky', changes: { text: 'Guest' } });
+    const guest = await crew.as.guest
+      .post(url(theirs.batch.id, `journal/${note.body.entryId}/amendments`))
+      .send({ reason: 'Sneaky', changes: { text: 'Guest' } });
     expect(guest.status).toBe(403);
     expect((await detailOf(theirs.batch.id)).journal[0].amendedBy).toEqual([]);
   });

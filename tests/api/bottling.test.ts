@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import {
-  abvHighGravity,
+  abvBy,
   bottlesFrom,
   CAUTION_BOTTLE_PRESSURE,
   CAUTION_SULFITES,
@@ -119,7 +119,7 @@ describe('bottling a batch whose fermentation does not look finished', () => {
     const res = await as.hand.post(bottlings(crew.cellar.id, batch.id)).send(bottleRequest(vessels));
     expect(res.status).toBe(201);
     // The ABV estimate uses the amended last reading too.
-    expect(res.body.lot.abvEstimate).toBe(Math.round(abvHighGravity(OG, 0.999) * 10) / 10);
+    expect(res.body.lot.abvEstimate).toBe(Math.round(abvBy(OG, 0.999) * 10) / 10);
   });
 });
 
@@ -137,7 +137,7 @@ describe('bottling a finished batch', () => {
 
     const { lot } = res.body;
     expect(lot).toMatchObject({ batchId: batch.id, batchName: batch.name, bottleCount, bottlesLeft: bottleCount, bottleMl: 750, closure: 'screw-cap', sulfiteAdded: true });
-    expect(lot.abvEstimate).toBe(Math.round(abvHighGravity(OG, FINISHED.at(-1)!.sg) * 10) / 10);
+    expect(lot.abvEstimate).toBe(Math.round(abvBy(OG, FINISHED.at(-1)!.sg) * 10) / 10);
     const { cases, loose } = casesFrom(bottleCount, perCase);
     const expectedSizes = [...Array<number>(cases).fill(perCase), ...(loose ? [loose] : [])];
     expect(lot.cases.map((c: { bottlesInitial: number }) => c.bottlesInitial)).toEqual(expectedSizes);

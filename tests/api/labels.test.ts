@@ -6,7 +6,7 @@ import { promisify } from 'node:util';
 import jsQR from 'jsqr';
 import { PNG } from 'pngjs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { abvHighGravity } from '../../shared/calc';
+import { abvBy } from '../../shared/calc';
 import { cellOrigin, mm } from '../../server/labels/layout';
 import { renderLabelsPdf } from '../../server/labels/render';
 import { vesselLabel } from '../../server/labels/content';
@@ -44,7 +44,11 @@ beforeAll(async () => {
   guest = await signedInAgent(app, crew.guest.email, TEST_PASSWORD);
   const cellarId = crew.cellar.id;
   const melomel = await makeBatch(ds, cellarId, { name: 'Bramble Melomel', kind: 'melomel', og: 1.112, lastReadingSg: 1.01 });
-  const long = await makeBatch(ds, cellarId, { name: 'Smoked pear, wildflower honey and long pepper metheglin for the midwinter feast', kind: 'metheglin', og: 1.11 });
+  const long = await makeBatch(ds, cellarId, {
+    name: 'Smoked pear, wildflower honey and long pepper metheglin for the midwinter feast',
+    kind: 'metheglin',
+    og: 1.11,
+  });
   codes.v1 = await makeVessel(ds, cellarId, { name: 'Carboy 1', batch: melomel });
   codes.v2 = await makeVessel(ds, cellarId, { name: 'The long-named green demijohn behind the cellar stairs', batch: long, capacityL: 5 });
   codes.v3 = await makeVessel(ds, cellarId, { name: 'Jug 3' });
@@ -61,11 +65,14 @@ const pdfUrl = (query: Record<string, string | number>) =>
   `/api/cellars/${crew.cellar.id}/labels/pdf?${new URLSearchParams(Object.entries(query).map(([k, v]) => [k, String(v)]))}`;
 
 async function fetchPdf(query: Record<string, string | number>): Promise<string> {
-  const res = await hand.get(pdfUrl(query)).buffer(true).parse((r, cb) => {
-    const chunks: Buffer[] = [];
-    r.on('data', (c: Buffer) => chunks.push(c));
-    r.on('end', () => cb(null, Buffer.concat(chunks)));
-  });
+  const res = await hand
+    .get(pdfUrl(query))
+    .buffer(true)
+    .parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
   expect(res.status, String(res.body)).toBe(200);
   expect(res.headers['content-type']).toBe('application/pdf');
   expect(res.headers['content-disposition']).toMatch(/^inline; filename=".+\.pdf"$/);
@@ -84,7 +91,10 @@ async function pdfInfo(file: string): Promise<{ pages: number; widthPt: number; 
 async function rasterise(file: string, first: number, last: number): Promise<PNG[]> {
   const prefix = `${file}-page`;
   await run('pdftoppm', ['-r', String(DPI), '-png', '-f', String(first), '-l', String(last), file, prefix]);
-  const pngs = fs.readdirSync(tmp).filter((f) => path.join(tmp, f).startsWith(prefix)).sort();
+  const pngs = fs
+    .readdirSync(tmp)
+    .filter((f) => path.join(tmp, f).startsWith(prefix))
+    .sort();
   return pngs.map((f) => PNG.sync.read(fs.readFileSync(path.join(tmp, f))));
 }
 
@@ -110,7 +120,10 @@ describe('templates', () => {
   it('lists every template file with its page, label size and labels per page', async () => {
     const res = await guest.get(`/api/cellars/${crew.cellar.id}/labels/templates`);
     expect(res.status).toBe(200);
-    const files = fs.readdirSync(LABELS_DIR).filter((f) => f.endsWith('.json')).map((f) => f.replace(/\.json$/, ''));
+    const files = fs
+      .readdirSync(LABELS_DIR)
+      .filter((f) => f.endsWith('.json'))
+      .map((f) => f.replace(/\.json$/, ''));
     expect(res.body.map((t: { id: string }) => t.id).sort()).toEqual(files.sort());
     expect(res.body.find((t: { id: string }) => t.id === 'a4-3x8-70x37')).toMatchObject({
       kind: 'sheet',
@@ -129,7 +142,9 @@ describe('templates', () => {
     good.layouts.case.fields[0].box.x = 10; // onto the QR code
     fs.writeFileSync(path.join(dir, 'broken-sheet.json'), JSON.stringify(good));
     expect(() => loadTemplates(dir)).toThrow(LabelTemplateError);
-    expect(() => loadTemplates(dir)).toThrow(/broken-sheet\.json[\s\S]*layouts\.vessel\.fields\.0\.box: the name box leaves the label[\s\S]*overlaps the QR/);
+    expect(() => loadTemplates(dir)).toThrow(
+      /broken-sheet\.json[\s\S]*layouts\.vessel\.fields\.0\.box: the name box leaves the label[\s\S]*overlaps the QR/,
+    );
     fs.writeFileSync(path.join(dir, 'broken-sheet.json'), '{ "id": ');
     expect(() => loadTemplates(dir)).toThrow(/not valid JSON/);
   });
@@ -153,7 +168,11 @@ describe('fitting text', () => {
 describe.each([...labelTemplates().values()].map((t) => [t.id, t] as const))('template %s', (_id, template) => {
   it('prints a QR code per label that opens that vessel or case', async () => {
     const order = [codes.v1, codes.v2, codes.v3, codes.c1, codes.c2];
-    const file = await fetchPdf({ template: template.id, vessels: [codes.v1, codes.v2, codes.v3].map((v) => v.id).join(','), cases: `${codes.c1.id},${codes.c2.id}` });
+    const file = await fetchPdf({
+      template: template.id,
+      vessels: [codes.v1, codes.v2, codes.v3].map((v) => v.id).join(','),
+      cases: `${codes.c1.id},${codes.c2.id}`,
+    });
     const info = await pdfInfo(file);
     expect(info.widthPt).toBeCloseTo(mm(template.page.width), 1);
     expect(info.heightPt).toBeCloseTo(mm(template.page.height), 1);
@@ -168,9 +187,17 @@ describe.each([...labelTemplates().values()].map((t) => [t.id, t] as const))('te
   it('keeps a very long vessel and batch name inside their boxes', async () => {
     const reports: TextReport[] = [];
     const item = vesselLabel({
-      id: codes.v2.id, code: codes.v2.code, name: 'WIDE CAPITAL LETTERS MAKE THE LONGEST VESSEL NAME WE ALLOW 60'.slice(0, 60), vesselKind: 'demijohn',
-      capacityL: 5, batchName: 'Smoked pear, wildflower honey and long pepper metheglin for the midwinter feast'.slice(0, 80),
-      batchKind: 'metheglin', startedOn: '2025-11-30', og: 1.13, lastSg: 1.02, unitSystem: 'metric',
+      id: codes.v2.id,
+      code: codes.v2.code,
+      name: 'WIDE CAPITAL LETTERS MAKE THE LONGEST VESSEL NAME WE ALLOW 60'.slice(0, 60),
+      vesselKind: 'demijohn',
+      capacityL: 5,
+      batchName: 'Smoked pear, wildflower honey and long pepper metheglin for the midwinter feast'.slice(0, 80),
+      batchKind: 'metheglin',
+      startedOn: '2025-11-30',
+      og: 1.13,
+      lastSg: 1.02,
+      unitSystem: 'metric',
     });
     await renderLabelsPdf(template, [item], { publicUrl: PUBLIC_URL, onText: (r) => reports.push(r) });
     const spec = new Map(template.layouts.vessel.fields.map((f) => [f.field, f]));
@@ -215,14 +242,14 @@ describe('what the labels say', () => {
     return stdout;
   }
 
-  it('shows the batch, start, OG and the high-gravity ABV estimate on a vessel label; "—" when unknown', async () => {
+  it('shows the batch, start, OG and the default (Balling) ABV estimate on a vessel label; "—" when unknown', async () => {
     const text = await textOf({ vessels: `${codes.v1.id},${codes.v2.id}` });
-    const abv = abvHighGravity(1.112, 1.01).toFixed(1);
+    const abv = abvBy(1.112, 1.01).toFixed(1);
     expect(text).toContain('Bramble Melomel');
     expect(text).toContain('Melomel (fruit mead)');
     expect(text).toContain('Started 10 Jan 2026');
     expect(text).toContain('OG 1.112');
-    expect(text).toMatch(new RegExp(`ABV\\s+${abv.replace('.', '\\.')} % \\(est\\.\\)`));
+    expect(text).toMatch(new RegExp(`ABV\\s+${abv.replace('.', '\\.')} % \\(est\\., Balling\\)`));
     expect(text).toMatch(/ABV —/);
   });
 
@@ -242,7 +269,7 @@ describe('selections and refusals', () => {
     return res.status === 200 ? Number(res.headers['x-label-count']) : res.status;
   };
 
-  it('prints a shelf, a lot\'s cases, a batch\'s vessels and lots', async () => {
+  it("prints a shelf, a lot's cases, a batch's vessels and lots", async () => {
     const { shelves } = await makeRack(ds, crew.cellar.id, 'Print rack', [6]);
     await placeDirectly(ds, crew.cellar.id, shelves[0]!.id, 2, { vesselId: codes.v3.id });
     await placeDirectly(ds, crew.cellar.id, shelves[0]!.id, 4, { caseId: codes.c2.id });

@@ -5,6 +5,7 @@ import {
   ageMilestones,
   annualVolumeUsage,
   US_HOME_WINE_LIMIT_L,
+  AGE_MILESTONE_MONTHS,
 } from '../../shared/calc';
 import { expectInputError } from './expect-input-error';
 
@@ -47,7 +48,15 @@ describe('addMonths', () => {
 
   it('rejects part months and negative months', () => {
     expectInputError(() => addMonths('2024-01-01', 1.5), 'months');
-    expectInputError(() => addMonths('2024-01-01', -1), 'months');
+    expectInputError(() => addMonths('2024-01-01', -1), 'months', 'Months must be between 0 and 12000 (got -1).');
+    expectInputError(() => addMonths('2024-01-01', 12_001), 'months');
+    expectInputError(() => addMonths('never', 1), 'date');
+  });
+
+  it('adds nothing for zero months and keeps the time of day', () => {
+    expect(addMonths('2024-01-31T18:30:00Z', 0).toISOString()).toBe('2024-01-31T18:30:00.000Z');
+    expect(addMonths('2024-01-31T18:30:00Z', 1).toISOString()).toBe('2024-02-29T18:30:00.000Z');
+    expect(addMonths('2024-01-15', 12_000).toISOString().slice(0, 10)).toBe('3024-01-15');
   });
 });
 
@@ -74,6 +83,17 @@ describe('ageMilestones — 3, 6 and 12 calendar months', () => {
     expect(m.map((x) => x.date.toISOString().slice(0, 10))).toEqual(['2024-04-30', '2024-07-31', '2025-01-31']);
   });
 
+  it('tracks 3, 6 and 12 months by default', () => {
+    expect(AGE_MILESTONE_MONTHS).toEqual([3, 6, 12]);
+    expect(ageMilestones('2024-01-15', '2024-01-15').map((m) => m.months)).toEqual([3, 6, 12]);
+  });
+
+  it('counts a milestone as reached from its very moment', () => {
+    const m = ageMilestones('2024-01-15T12:00:00Z', '2024-04-15T12:00:00Z');
+    expect(m[0].reached).toBe(true);
+    expect(ageMilestones('2024-01-15T12:00:00Z', '2024-04-15T11:59:59Z')[0].reached).toBe(false);
+  });
+
   it('takes the cellar’s own milestones', () => {
     const m = ageMilestones('2024-01-01', '2024-03-01', [1, 2, 18]);
     expect(m.map((x) => [x.months, x.reached])).toEqual([
@@ -87,12 +107,13 @@ describe('ageMilestones — 3, 6 and 12 calendar months', () => {
     expectInputError(() => ageMilestones('nope', '2024-01-01'), 'start');
     expectInputError(() => ageMilestones('2024-01-01', 'nope'), 'now');
     expectInputError(() => ageMilestones('2024-01-01', '2024-02-01', [3, 0]), 'months[1]');
-    expectInputError(() => ageMilestones('2024-01-01', '2024-02-01', 'x' as never), 'months');
+    expectInputError(() => ageMilestones('2024-01-01', '2024-02-01', 'x' as never), 'months', 'Milestones must be a list of month counts.');
+    expectInputError(() => ageMilestones('2024-01-01', '2024-02-01', [1201]), 'months[0]', 'Milestone 1 must be between 1 and 1200 (got 1201).');
   });
 });
 
 describe('annual production against a limit', () => {
-  it('US federal reference: 100 gal for one adult, 200 for two or more (27 CFR 24.75(a)), in litres', () => {
+  it('US federal reference: 100 gal for one adult, 200 for two or more (27 CFR 24.75(b)), in litres', () => {
     // 1 US gal = 231 in³ × (2.54 cm)³ (NIST Handbook 44, Appendix C).
     const gallon = (231 * 2.54 ** 3) / 1000;
     expect(US_HOME_WINE_LIMIT_L.oneAdult).toBeCloseTo(100 * gallon, 9);
@@ -105,6 +126,13 @@ describe('annual production against a limit', () => {
     expect(u.remainingL).toBeCloseTo(378.5411784 - 46.5, 9);
     expect(u.percentUsed).toBeCloseTo((46.5 / 378.5411784) * 100, 9);
     expect(u.over).toBe(false);
+  });
+
+  it('is not over at exactly the limit', () => {
+    const u = annualVolumeUsage({ volumesL: [50, 50], limitL: 100 });
+    expect(u.over).toBe(false);
+    expect(u.percentUsed).toBe(100);
+    expect(u.remainingL).toBe(0);
   });
 
   it('says when the year is over the limit', () => {
@@ -128,6 +156,13 @@ describe('annual production against a limit', () => {
     expectInputError(() => annualVolumeUsage({ volumesL: [10, -2], limitL: 100 }), 'volumesL[1]');
     expectInputError(() => annualVolumeUsage({ volumesL: [10], limitL: 0 }), 'limitL');
     expectInputError(() => annualVolumeUsage({ volumesL: [Number.NaN], limitL: 100 }), 'volumesL[0]');
-    expectInputError(() => annualVolumeUsage({ volumesL: 5 as never, limitL: 100 }), 'volumesL');
+    expectInputError(() => annualVolumeUsage({ volumesL: 5 as never, limitL: 100 }), 'volumesL', 'Volumes must be a list of litres.');
+  });
+});
+
+describe('production-limit messages', () => {
+  it('name the value and its unit', () => {
+    expectInputError(() => annualVolumeUsage({ volumesL: [], limitL: 0 }), 'limitL', 'Yearly limit must be more than zero (got 0 L).');
+    expectInputError(() => annualVolumeUsage({ volumesL: [10, -2], limitL: 100 }), 'volumesL[1]', 'Volume of batch 2 cannot be negative (got -2 L).');
   });
 });

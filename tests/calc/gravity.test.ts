@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { sgToBrix, brixToSg, sgToPlato, platoToSg, gravityPoints } from '../../shared/calc';
+import { sgToBrix, brixToSg, sgToPlato, platoToSg, gravityPoints, BRIX_MIN, BRIX_MAX, PLATO_MIN, PLATO_MAX } from '../../shared/calc';
 import { expectInputError } from './expect-input-error';
 
 // Density of water at 20 °C, 0.99820 g/cm³: CRC Handbook of Chemistry and
@@ -82,6 +82,27 @@ describe('gravity points', () => {
   it('are (SG − 1) × 1000 (trade definition)', () => {
     expect(gravityPoints(1.085)).toBeCloseTo(85, 9);
     expect(gravityPoints(0.996)).toBeCloseTo(-4, 9);
+  });
+});
+
+describe('the accepted °Brix and °Plato ranges', () => {
+  // The published cubics written out here, evaluated at the gravities accepted (0.980–1.200).
+  const brix = (sg: number) => 182.46007 * sg ** 3 - 775.68212 * sg ** 2 + 1262.7794 * sg - 669.56218;
+  const plato = (sg: number) => -616.868 + 1111.14 * sg - 630.272 * sg ** 2 + 135.997 * sg ** 3;
+
+  it('are the scales at 0.980 and 1.200', () => {
+    expect(BRIX_MIN).toBeCloseTo(brix(0.98), 6);
+    expect(BRIX_MAX).toBeCloseTo(brix(1.2), 6);
+    expect(PLATO_MIN).toBeCloseTo(plato(0.98), 6);
+    expect(PLATO_MAX).toBeCloseTo(plato(1.2), 6);
+    expect(BRIX_MAX).toBeCloseTo(44.08, 2);
+  });
+
+  it('accept the very ends and name the range in the message', () => {
+    expect(brixToSg(brix(1.2))).toBeCloseTo(1.2, 9);
+    expect(platoToSg(plato(0.98))).toBeCloseTo(0.98, 9);
+    expectInputError(() => brixToSg(44.2), 'brix', 'Brix must be between -5.2 and 44.0 (got 44.2).');
+    expectInputError(() => platoToSg(-5.3), 'plato', 'Plato must be between -5.2 and 43.9 (got -5.3).');
   });
 });
 

@@ -6,6 +6,19 @@ import { CalcInputError, FORMULA_SOURCES, CAUTIONS } from '../../shared/calc';
 const REQUIRED_FUNCTIONS = [
   'abvSimple',
   'abvHighGravity',
+  'abvBalling',
+  'abvBy',
+  'fgAtAbv',
+  'gravityFromFermentable',
+  'sugarPerLitre',
+  'gravityPoints',
+  'waterDensity',
+  'freeSo2Needed',
+  'sorbicAcidMgPerL',
+  'addMonths',
+  'spiceCaution',
+  'isAntimicrobialSpice',
+  'tidyNumber',
   'apparentAttenuation',
   'sgToPlato',
   'platoToSg',
@@ -40,7 +53,7 @@ const REQUIRED_FUNCTIONS = [
 ] as const;
 
 // Presentation helpers need no formula footnote.
-const NO_FOOTNOTE = new Set(['formatVolume', 'formatTemperature', 'formatMass', 'tidyNumber']);
+const NO_FOOTNOTE = new Set(['formatVolume', 'formatTemperature', 'formatMass', 'tidyNumber', 'isAntimicrobialSpice']);
 
 describe('the library’s public face', () => {
   it.each(REQUIRED_FUNCTIONS)('exports %s as a function', (name) => {
@@ -70,12 +83,60 @@ describe('the library’s public face', () => {
     }
   });
 
-  it('attaches the sulfite, bottle-pressure and estimate cautions where they apply', () => {
-    expect(FORMULA_SOURCES.metabisulfiteGrams.cautions).toContain('sulfites');
-    expect(FORMULA_SOURCES.sorbateGrams.cautions).toContain('bottlePressure');
-    expect(FORMULA_SOURCES.bottlesFrom.cautions).toContain('bottlePressure');
-    expect(FORMULA_SOURCES.abvHighGravity.cautions).toContain('estimate');
-    expect(FORMULA_SOURCES.annualVolumeUsage.cautions).toContain('legalLimits');
+  it('attaches to each computation the cautions it calls for', () => {
+    const cautionsOf = Object.fromEntries(Object.entries(FORMULA_SOURCES).map(([k, v]) => [k, [...v.cautions]]));
+    expect(cautionsOf).toEqual({
+      abvSimple: ['estimate'],
+      abvHighGravity: ['estimate'],
+      abvBalling: ['estimate'],
+      abvBy: ['estimate'],
+      apparentAttenuation: ['estimate'],
+      potentialAbv: ['estimate'],
+      sgToBrix: [],
+      brixToSg: [],
+      sgToPlato: [],
+      platoToSg: [],
+      correctGravity: [],
+      gravityPoints: [],
+      waterDensity: [],
+      fermentableForGravity: ['estimate'],
+      gravityFromFermentable: ['estimate'],
+      sugarPerLitre: ['estimate'],
+      fgAtAbv: ['estimate'],
+      predictFinish: ['estimate', 'bottlePressure'],
+      sweetnessOf: [],
+      strengthOf: [],
+      fermentationState: ['estimate', 'bottlePressure'],
+      metabisulfiteGrams: ['sulfites', 'estimate'],
+      freeSo2Needed: ['sulfites'],
+      sorbicAcidMgPerL: ['sorbate'],
+      sorbateGrams: ['sorbate', 'bottlePressure', 'estimate'],
+      headspace: ['glass'],
+      rackingLoss: ['glass'],
+      bestVesselForRacking: ['glass'],
+      bottlesFrom: ['bottlePressure'],
+      casesFrom: [],
+      litresFrom: [],
+      litresTo: [],
+      kilogramsFrom: [],
+      kilogramsTo: [],
+      celsiusFrom: [],
+      fahrenheitFrom: [],
+      daysBetween: [],
+      addMonths: [],
+      ageMilestones: [],
+      annualVolumeUsage: ['legalLimits'],
+      spiceCaution: ['spiceInPrimary'],
+    });
+  });
+
+  it('names the sources the issue of record fixed: 27 CFR 24.75(b), the 1995 high-gravity fit, the Balling relations', () => {
+    expect(FORMULA_SOURCES.annualVolumeUsage.source).toContain('27 CFR 24.75(b)');
+    expect(FORMULA_SOURCES.abvHighGravity.source).toMatch(/Hall, Zymurgy \(1995\)/);
+    expect(FORMULA_SOURCES.abvBalling.source).toMatch(/Balling.*1854/);
+    expect(FORMULA_SOURCES.predictFinish.source).toMatch(/Balling/);
+    expect(FORMULA_SOURCES.fermentableForGravity.name).toMatch(/35 points/);
+    expect(FORMULA_SOURCES.rackingLoss.name).toMatch(/0\.03 L/);
   });
 
   it('has caution texts that defer to local rules where the law is involved', () => {
@@ -84,6 +145,11 @@ describe('the library’s public face', () => {
     expect(calc.CAUTION_BOTTLE_PRESSURE).toMatch(/burst/i);
     expect(calc.CAUTION_ESTIMATE).toMatch(/estimate/i);
     expect(calc.CAUTION_LEGAL_LIMITS).toMatch(/where you live/i);
+    expect(calc.CAUTION_SORBATE).toMatch(/sulfite/i);
+    expect(calc.CAUTION_GLASS).toMatch(/neck/i);
+    expect(calc.CAUTION_SANITISER).toMatch(/dilution/i);
+    expect(calc.CAUTION_SPICE_IN_PRIMARY).toMatch(/secondary/i);
+    expect(Object.keys(CAUTIONS)).toEqual(['estimate', 'sulfites', 'sorbate', 'bottlePressure', 'legalLimits', 'glass', 'sanitiser', 'spiceInPrimary']);
   });
 });
 
@@ -98,6 +164,27 @@ const CALLS: Call[] = [
   ['abvSimple', 'fg', (x) => calc.abvSimple(1.1, b(x))],
   ['abvHighGravity', 'og', (x) => calc.abvHighGravity(b(x), 1.0)],
   ['abvHighGravity', 'fg', (x) => calc.abvHighGravity(1.1, b(x))],
+  ['abvBalling', 'og', (x) => calc.abvBalling(b(x), 1.0)],
+  ['abvBalling', 'fg', (x) => calc.abvBalling(1.1, b(x))],
+  ['abvBy', 'og', (x) => calc.abvBy(b(x), 1.0)],
+  ['abvBy', 'fg', (x) => calc.abvBy(1.1, b(x), 'simple')],
+  ['fgAtAbv', 'og', (x) => calc.fgAtAbv(b(x), 10)],
+  ['fgAtAbv', 'abv', (x) => calc.fgAtAbv(1.1, b(x))],
+  ['gravityPoints', 'sg', (x) => calc.gravityPoints(b(x))],
+  ['waterDensity', 'celsius', (x) => calc.waterDensity(b(x))],
+  ['sugarPerLitre', 'sg', (x) => calc.sugarPerLitre(b(x))],
+  ['gravityFromFermentable', 'volumeL', (x) => calc.gravityFromFermentable({ volumeL: b(x), kg: 1, source: 'honey' })],
+  ['gravityFromFermentable', 'kg', (x) => calc.gravityFromFermentable({ volumeL: 10, kg: b(x), source: 'honey' })],
+  ['gravityFromFermentable', 'startOg', (x) => calc.gravityFromFermentable({ volumeL: 10, kg: 1, startOg: b(x), source: 'honey' }), 'optional'],
+  ['gravityFromFermentable', 'honeyMoisturePercent', (x) => calc.gravityFromFermentable({ volumeL: 10, kg: 1, source: 'honey', honeyMoisturePercent: b(x) }), 'optional'],
+  ['fermentableForGravity', 'honeyMoisturePercent', (x) => calc.fermentableForGravity({ volumeL: 5, targetOg: 1.1, source: 'honey', honeyMoisturePercent: b(x) }), 'optional'],
+  ['predictFinish', 'dryFg', (x) => calc.predictFinish({ og: 1.1, toleranceAbv: 14, dryFg: b(x) }), 'optional'],
+  ['fermentationState', 'toleranceAbv', (x) => calc.fermentationState({ og: 1.1, toleranceAbv: b(x), readings: [], now: new Date() })],
+  ['freeSo2Needed', 'pH', (x) => calc.freeSo2Needed(b(x))],
+  ['sorbicAcidMgPerL', 'abv', (x) => calc.sorbicAcidMgPerL(b(x))],
+  ['addMonths', 'months', (x) => calc.addMonths('2024-01-01', b(x))],
+  ['ageMilestones', 'months[0]', (x) => calc.ageMilestones('2024-01-01', '2024-02-01', [b(x)])],
+  ['tidyNumber', 'value', (x) => calc.tidyNumber(b(x))],
   ['apparentAttenuation', 'og', (x) => calc.apparentAttenuation(b(x), 1.0)],
   ['apparentAttenuation', 'fg', (x) => calc.apparentAttenuation(1.1, b(x))],
   ['potentialAbv', 'og', (x) => calc.potentialAbv(b(x))],
@@ -174,13 +261,68 @@ describe('never a silent NaN or Infinity', () => {
 describe('optional fields', () => {
   it('treat null as not given, using the documented default', () => {
     const n = null as unknown as undefined;
-    expect(calc.fermentableForGravity({ volumeL: 10, targetOg: 1.1, startOg: n, source: 'honey' })).toBe(
-      calc.fermentableForGravity({ volumeL: 10, targetOg: 1.1, source: 'honey' }),
-    );
-    expect(calc.metabisulfiteGrams({ volumeL: 10, pH: 3.4, molecularSo2: n, freeSo2Now: n })).toBe(
-      calc.metabisulfiteGrams({ volumeL: 10, pH: 3.4, molecularSo2: 0.8, freeSo2Now: 0 }),
-    );
+    // Honey for 10 L at 1.100 from water, by the 35-point rule (common practice): 100/35 lb per
+    // US gal = 0.34237 kg/L, so 3.42 kg; the sucrose table bends it by under 2 %.
+    const honey = calc.fermentableForGravity({ volumeL: 10, targetOg: 1.1, startOg: n, source: 'honey' });
+    expect(Math.abs(honey - 3.4237) / 3.4237).toBeLessThan(0.02);
+    // 0.8 × (1 + 10^(3.4 − 1.81)) = 31.924 mg/L over 10 L, ÷ 0.5763 SO₂ in KMS: 0.5539 g.
+    expect(calc.metabisulfiteGrams({ volumeL: 10, pH: 3.4, molecularSo2: n, freeSo2Now: n })).toBeCloseTo(0.5539, 3);
     expect(calc.bottlesFrom({ volumeL: 10, bottleMl: 750, lossL: n })).toEqual({ bottles: 13, remainderMl: 250 });
-    expect(calc.rackingLoss({ volumeL: 10, lossFraction: n })).toBe(calc.rackingLoss({ volumeL: 10 }));
+    expect(calc.rackingLoss({ volumeL: 10, lossFraction: n })).toBeCloseTo(0.28, 12); // 0.03 + 10 × 0.025
+    // 1 kg of honey made up to 10 L: 35 × 2.2046 lb / 2.6417 US gal = 29.2 points.
+    const sg = calc.gravityFromFermentable({ volumeL: 10, kg: 1, source: 'honey', honeyMoisturePercent: n });
+    expect(Math.abs(sg - 1.0292)).toBeLessThan(0.0003);
+    expect(calc.predictFinish({ og: 1.05, toleranceAbv: 18, dryFg: n }).fg).toBe(0.996);
+  });
+});
+
+// Finite input can still overflow a double (1e308 gallons in litres); each such call must
+// throw CalcInputError naming the argument that made the figure too large, never answer
+// Infinity, NaN or "NaN".
+const HUGE: [name: string, field: string, run: () => unknown][] = [
+  ['litresFrom', 'value', () => calc.litresFrom(1e308, 'US gal')],
+  ['litresTo', 'litres', () => calc.litresTo(1e308, 'mL')],
+  ['kilogramsTo', 'kilograms', () => calc.kilogramsTo(1e308, 'g')],
+  ['fahrenheitFrom', 'celsius', () => calc.fahrenheitFrom(1e308)],
+  ['formatTemperature', 'celsius', () => calc.formatTemperature(1e308, 'us')],
+  ['formatMass', 'kilograms', () => calc.formatMass(1e308, 'us')],
+  ['metabisulfiteGrams', 'volumeL', () => calc.metabisulfiteGrams({ volumeL: 1e308, pH: 3.4 })],
+  ['sorbateGrams', 'volumeL', () => calc.sorbateGrams({ volumeL: 1e308, abv: 12 })],
+  ['bottlesFrom', 'volumeL', () => calc.bottlesFrom({ volumeL: 1e308, bottleMl: 750 })],
+  ['annualVolumeUsage', 'volumesL', () => calc.annualVolumeUsage({ volumesL: [1e308, 1e308], limitL: 100 })],
+  ['annualVolumeUsage', 'limitL', () => calc.annualVolumeUsage({ volumesL: [1e10], limitL: 1e-300 })],
+  ['addMonths', 'months', () => calc.addMonths('+275759-06-15', 12_000)],
+  ['ageMilestones', 'months[1]', () => calc.ageMilestones('+275759-06-15', '2024-01-01', [3, 24])],
+  ['tidyNumber', 'value', () => calc.tidyNumber(Number.NaN)],
+];
+
+describe('never Infinity from finite but huge input', () => {
+  it.each(HUGE)('%s names %s', (_name, field, run) => {
+    let caught: unknown;
+    try {
+      run();
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toBeInstanceOf(CalcInputError);
+    expect((caught as CalcInputError).field).toBe(field);
+  });
+
+  it('says in plain words what was too large', () => {
+    expect(() => calc.litresFrom(1e308, 'US gal')).toThrow('Volume is too large to work with.');
+    expect(() => calc.kilogramsTo(1e308, 'g')).toThrow('Mass is too large to work with.');
+    expect(() => calc.fahrenheitFrom(1e308)).toThrow('Temperature is too large to work with.');
+    expect(() => calc.annualVolumeUsage({ volumesL: [1e308, 1e308], limitL: 100 })).toThrow('Total volume is too large to work with.');
+    expect(() => calc.annualVolumeUsage({ volumesL: [1e10], limitL: 1e-300 })).toThrow(
+      'Yearly limit (1e-300 L) is too small to measure a share of.',
+    );
+    expect(() => calc.addMonths('+275759-06-15', 18)).toThrow('18 months after +275759-06-15 is past the last date that can be kept (year 275760).');
+  });
+
+  it('still works right up to the edge', () => {
+    expect(calc.litresFrom(1e307, 'L')).toBe(1e307);
+    expect(calc.addMonths('+275759-06-15', 12).toISOString()).toBe('+275760-06-15T00:00:00.000Z');
+    expect(calc.formatMass(1e307, 'us')).toBe('2.2046226218487757e+307 lb');
+    expect(calc.annualVolumeUsage({ volumesL: [1e307], limitL: 1e300 }).percentUsed).toBeCloseTo(1e9, -3);
   });
 });

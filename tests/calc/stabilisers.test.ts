@@ -6,6 +6,10 @@ import {
   sorbateGrams,
   KMS_SO2_FRACTION,
   SORBATE_SORBIC_FRACTION,
+  SO2_PKA,
+  DEFAULT_MOLECULAR_SO2,
+  SORBIC_ACID_TABLE,
+  SORBIC_ACID_MAX_MG_PER_L,
 } from '../../shared/calc';
 import { expectInputError } from './expect-input-error';
 
@@ -55,8 +59,15 @@ describe('free SO₂ for a molecular-SO₂ target', () => {
     expect(Math.abs(freeSo2Needed(pH, 0.5) - mgPerL)).toBeLessThanOrEqual(1);
   });
 
-  it('defaults to the 0.8 mg/L target', () => {
-    expect(freeSo2Needed(3.4)).toBe(freeSo2Needed(3.4, 0.8));
+  it('defaults to the 0.8 mg/L target: 0.8 × (1 + 10^(3.4 − 1.81)) = 31.92 mg/L at pH 3.4 (worked by hand)', () => {
+    expect(freeSo2Needed(3.4)).toBeCloseTo(31.924, 3);
+  });
+
+  it('pins the constants', () => {
+    expect(SO2_PKA).toBe(1.81); // Zoecklein et al. (1995)
+    expect(DEFAULT_MOLECULAR_SO2).toBe(0.8);
+    expect(KMS_SO2_FRACTION).toBe(0.576);
+    expect(SORBATE_SORBIC_FRACTION).toBe(0.7465);
   });
 });
 
@@ -77,10 +88,11 @@ describe('metabisulfiteGrams', () => {
   });
 
   it('only tops up what is missing', () => {
-    const full = metabisulfiteGrams({ volumeL: 23, pH: 3.4 });
+    // (31.924 − 20) mg/L × 23 L ÷ 0.5763, worked by hand: 0.4759 g.
     const topUp = metabisulfiteGrams({ volumeL: 23, pH: 3.4, freeSo2Now: 20 });
-    expect(topUp).toBeCloseTo(full - (20 * 23) / 1000 / KMS_SO2_FRACTION, 9);
+    expect(Math.abs(topUp - ((31.924 - 20) * 23) / 1000 / SO2_SHARE_OF_KMS)).toBeLessThan(0.001);
     expect(metabisulfiteGrams({ volumeL: 23, pH: 3.4, freeSo2Now: 60 })).toBe(0);
+    expect(metabisulfiteGrams({ volumeL: 0, pH: 3.4 })).toBe(0);
   });
 
   it('needs more sulfite at higher pH', () => {
@@ -117,17 +129,45 @@ describe('sorbate', () => {
     expect(sorbicAcidMgPerL(12.5)).toBeCloseTo(87.5, 9);
   });
 
+  it('pins the table and the ceiling', () => {
+    expect(SORBIC_ACID_TABLE).toEqual([
+      { abv: 10, mgPerL: 150 },
+      { abv: 11, mgPerL: 125 },
+      { abv: 12, mgPerL: 100 },
+      { abv: 13, mgPerL: 75 },
+      { abv: 14, mgPerL: 50 },
+    ]);
+    expect(SORBIC_ACID_MAX_MG_PER_L).toBe(200);
+  });
+
   it('stays at the 14 % figure for stronger wines and is capped at 200 mg/L (EU limit for wine) for weak ones', () => {
     expect(sorbicAcidMgPerL(17)).toBeCloseTo(50, 9);
     expect(sorbicAcidMgPerL(9)).toBeCloseTo(175, 9);
     expect(sorbicAcidMgPerL(6)).toBeCloseTo(200, 9);
     expect(sorbicAcidMgPerL(0)).toBeCloseTo(200, 9);
+    expect(sorbicAcidMgPerL(8)).toBeCloseTo(200, 9); // 150 + 2 × 25, just at the ceiling
+    expect(sorbicAcidMgPerL(25)).toBeCloseTo(50, 9);
   });
 
   it('rejects impossible input, naming the argument', () => {
-    expectInputError(() => sorbateGrams({ volumeL: 10, abv: 30 }), 'abv');
+    expectInputError(() => sorbateGrams({ volumeL: 10, abv: 30 }), 'abv', 'Alcohol must be between 0 and 25 % ABV (got 30 % ABV).');
     expectInputError(() => sorbateGrams({ volumeL: 10, abv: -1 }), 'abv');
     expectInputError(() => sorbateGrams({ volumeL: -10, abv: 12 }), 'volumeL');
     expectInputError(() => sorbateGrams({ volumeL: Number.NaN, abv: 12 }), 'volumeL');
+  });
+});
+
+describe('stabiliser messages', () => {
+  it('name the value, its unit and its range', () => {
+    expectInputError(() => freeSo2Needed(3.4, 3), 'molecularSo2', 'Molecular SO₂ target must be between 0.1 and 2.0 mg/L (got 3.0 mg/L).');
+    expectInputError(() => metabisulfiteGrams({ volumeL: -1, pH: 3.4 }), 'volumeL', 'Volume cannot be negative (got -1 L).');
+    expectInputError(
+      () => metabisulfiteGrams({ volumeL: 10, pH: 3.4, freeSo2Now: 600 }),
+      'freeSo2Now',
+      'Free SO₂ already present must be between 0 and 500 mg/L (got 600 mg/L).',
+    );
+    expectInputError(() => metabisulfiteGrams({ volumeL: 1e308, pH: 3.4 }), 'volumeL', 'Volume is too large to work with.');
+    expectInputError(() => sorbateGrams({ volumeL: -2, abv: 12 }), 'volumeL', 'Volume cannot be negative (got -2 L).');
+    expectInputError(() => sorbateGrams({ volumeL: 1e308, abv: 12 }), 'volumeL', 'Volume is too large to work with.');
   });
 });

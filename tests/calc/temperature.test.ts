@@ -1,5 +1,13 @@
 import { describe, it, expect } from 'vitest';
-import { waterDensity, correctGravity, celsiusFrom, CALIBRATION_60F_C } from '../../shared/calc';
+import {
+  waterDensity,
+  correctGravity,
+  celsiusFrom,
+  CALIBRATION_60F_C,
+  CALIBRATION_20C,
+  CORRECTION_MIN_C,
+  CORRECTION_MAX_C,
+} from '../../shared/calc';
 import { expectInputError } from './expect-input-error';
 
 // Density of air-free water in g/cm³, CRC Handbook of Chemistry and Physics,
@@ -109,6 +117,17 @@ describe('hydrometer correction, calibration 20 °C, against CRC water densities
   });
 });
 
+describe('calibration temperatures and range', () => {
+  it('are 20 °C and 60 °F (15.56 °C), within the 0–40 °C of the water-density formula', () => {
+    expect(CALIBRATION_20C).toBe(20);
+    expect(CALIBRATION_60F_C).toBeCloseTo(15.5556, 4); // (60 − 32) / 1.8
+    expect(CORRECTION_MIN_C).toBe(0);
+    expect(CORRECTION_MAX_C).toBe(40);
+    expect(waterDensity(0)).toBeCloseTo(999.84, 1);
+    expect(waterDensity(40)).toBeCloseTo(992.22, 1);
+  });
+});
+
 describe('hydrometer correction input checks', () => {
   it('rejects temperatures outside 0–40 °C and impossible readings, naming the argument', () => {
     expectInputError(() => correctGravity(1.05, 41), 'sampleC', 'Sample temperature must be between 0 and 40 °C (got 41 °C).');
@@ -118,5 +137,17 @@ describe('hydrometer correction input checks', () => {
     expectInputError(() => correctGravity(1.3, 20), 'reading');
     expectInputError(() => correctGravity(Number.POSITIVE_INFINITY, 20), 'reading');
     expectInputError(() => waterDensity(50), 'celsius');
+  });
+});
+
+describe('temperature messages', () => {
+  it('name the temperature and its range in °C', () => {
+    expectInputError(() => waterDensity(50), 'celsius', 'Water temperature must be between 0 and 40 °C (got 50 °C).');
+    expectInputError(
+      () => correctGravity(1.05, 20, 45),
+      'calibrationC',
+      'Hydrometer calibration temperature must be between 0 and 40 °C (got 45 °C).',
+    );
+    expectInputError(() => correctGravity(1.3, 20), 'reading', 'Hydrometer reading must be between 0.980 and 1.200 (got 1.300).');
   });
 });

@@ -7,6 +7,13 @@ import {
   celsiusFrom,
   fahrenheitFrom,
   LITRES_PER_US_GALLON,
+  LITRES_PER_IMPERIAL_GALLON,
+  LITRES_PER_US_FLUID_OUNCE,
+  KILOGRAMS_PER_POUND,
+  KILOGRAMS_PER_OUNCE,
+  ABSOLUTE_ZERO_C,
+  VOLUME_UNITS,
+  MASS_UNITS,
 } from '../../shared/calc';
 import { expectInputError } from './expect-input-error';
 
@@ -23,7 +30,7 @@ describe('volume conversions (NIST Handbook 44, Appendix C)', () => {
 
   it('a US fluid ounce is 1/128 gallon = 29.573 529 562 5 mL (HB44 App. C)', () => {
     expect(litresFrom(1, 'US fl oz') * 1000).toBeCloseTo(29.5735295625, 10);
-    expect(litresFrom(128, 'US fl oz')).toBeCloseTo(litresFrom(1, 'US gal'), 12);
+    expect(litresFrom(128, 'US fl oz')).toBeCloseTo(3.785411784, 12);
   });
 
   it('an imperial gallon is 4.546 09 L exactly (HB44 App. C; UK Weights and Measures Act 1985)', () => {
@@ -108,8 +115,38 @@ describe('temperature conversions (NIST SP 811 (2008), Appendix B: t/°C = (t/°
     expectInputError(() => celsiusFrom(10, 'K' as never), 'unit');
   });
 
-  it('uses the exact gallon, not a rounded one', () => {
-    expect(LITRES_PER_US_GALLON).not.toBe(3.785);
+  it('uses the exact definitions, not rounded ones', () => {
     expect(LITRES_PER_US_GALLON).toBe(3.785411784);
+    expect(LITRES_PER_IMPERIAL_GALLON).toBe(4.54609);
+    expect(LITRES_PER_US_FLUID_OUNCE * 1000).toBeCloseTo(29.5735295625, 12);
+    expect(KILOGRAMS_PER_POUND).toBe(0.45359237);
+    expect(KILOGRAMS_PER_OUNCE * 1000).toBeCloseTo(28.349523125, 12);
+    expect(ABSOLUTE_ZERO_C).toBe(-273.15);
+  });
+
+  it('offers every unit the cellar works in', () => {
+    expect(VOLUME_UNITS).toEqual(['L', 'mL', 'US gal', 'imp gal', 'US fl oz']);
+    expect(MASS_UNITS).toEqual(['kg', 'g', 'lb', 'oz']);
+  });
+
+  it('accepts absolute zero itself and says plainly what is below it', () => {
+    expect(celsiusFrom(-273.15, 'C')).toBe(-273.15);
+    expect(fahrenheitFrom(-273.15)).toBeCloseTo(-459.67, 9);
+    expectInputError(() => celsiusFrom(-460, 'F'), 'value', 'Temperature cannot be below absolute zero (got -460 °F).');
+    expectInputError(() => fahrenheitFrom(-273.16), 'celsius', 'Temperature cannot be below absolute zero (got -273.16 °C).');
+  });
+});
+
+describe('unit conversion messages', () => {
+  it('name the value, its unit and the units offered', () => {
+    expectInputError(() => litresTo(-1, 'L'), 'litres', 'Volume cannot be negative (got -1 L).');
+    expectInputError(() => kilogramsTo(-2, 'kg'), 'kilograms', 'Mass cannot be negative (got -2 kg).');
+    expectInputError(() => kilogramsFrom(-2, 'kg'), 'value', 'Mass cannot be negative (got -2).');
+    expectInputError(() => litresTo(1, 'barrel' as never), 'unit', "Volume unit must be one of 'L', 'mL', 'US gal', 'imp gal', 'US fl oz' (got 'barrel').");
+    expectInputError(() => litresFrom(1, 'barrel' as never), 'unit', /^Volume unit must be one of/);
+    expectInputError(() => kilogramsTo(1, 'stone' as never), 'unit', "Mass unit must be one of 'kg', 'g', 'lb', 'oz' (got 'stone').");
+    expectInputError(() => kilogramsFrom(1, 'stone' as never), 'unit', /^Mass unit must be one of/);
+    expectInputError(() => litresTo(1e308, 'mL'), 'litres', 'Volume is too large to work with.');
+    expectInputError(() => celsiusFrom(10, 'K' as never), 'unit', "Temperature unit must be one of 'C', 'F' (got 'K').");
   });
 });

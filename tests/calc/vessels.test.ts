@@ -1,5 +1,15 @@
 import { describe, it, expect } from 'vitest';
-import { headspace, rackingLoss, bestVesselForRacking, bottlesFrom, casesFrom } from '../../shared/calc';
+import {
+  headspace,
+  rackingLoss,
+  bestVesselForRacking,
+  bottlesFrom,
+  casesFrom,
+  DEFAULT_BOTTLES_PER_CASE,
+  RACKING_LOSS_FIXED_L,
+  RACKING_LOSS_FRACTION,
+  RACKING_STAGES,
+} from '../../shared/calc';
 import { expectInputError } from './expect-input-error';
 
 describe('headspace — capacity minus volume (definition)', () => {
@@ -27,23 +37,61 @@ describe('headspace — capacity minus volume (definition)', () => {
   });
 });
 
-describe('rackingLoss — rule of thumb (common practice): 8 % primary, 4 % secondary, 2 % later', () => {
+describe('rackingLoss — a fixed 0.03 L plus a share of the volume by stage (common practice)', () => {
+  // Makers' figures (common practice): about half a cup from a one-gallon batch and a couple
+  // of cups from a five-gallon batch. US cup = 8 US fl oz = 236.6 mL (NIST Handbook 44, App. C).
+  const CUP_L = (8 * 231 * 2.54 ** 3) / 1000 / 128;
+  const GALLON_L = (231 * 2.54 ** 3) / 1000;
+
+  it('loses about half a cup from a one-gallon batch', () => {
+    const loss = rackingLoss({ volumeL: GALLON_L });
+    expect(loss / CUP_L).toBeGreaterThan(0.4);
+    expect(loss / CUP_L).toBeLessThan(0.65);
+  });
+
+  it('loses about two cups from a five-gallon batch', () => {
+    const loss = rackingLoss({ volumeL: 5 * GALLON_L });
+    expect(loss / CUP_L).toBeGreaterThan(1.75);
+    expect(loss / CUP_L).toBeLessThan(2.5);
+  });
+
+  it('loses more off the heavy primary lees than at later rackings, never a fixed share', () => {
+    const primary = rackingLoss({ volumeL: 5 * GALLON_L, stage: 'primary' });
+    const later = rackingLoss({ volumeL: 5 * GALLON_L, stage: 'ageing' });
+    expect(primary / CUP_L).toBeGreaterThan(3);
+    expect(primary / CUP_L).toBeLessThan(4); // a share of 8 % would be 6.4 cups
+    expect(later / CUP_L).toBeLessThan(1);
+  });
+
   it.each([
-    ['primary', 1.6],
-    ['secondary', 0.8],
-    ['ageing', 0.4],
+    // [stage, litres lost from 20 L]: 0.03 + 20 × share
+    ['primary', 0.83], // 0.04
+    ['secondary', 0.53], // 0.025
+    ['ageing', 0.23], // 0.01
   ] as const)('20 L at a %s racking loses %s L', (stage, litres) => {
     expect(rackingLoss({ volumeL: 20, stage })).toBeCloseTo(litres, 9);
   });
 
-  it('defaults to a secondary racking and takes the cellar’s own loss share', () => {
-    expect(rackingLoss({ volumeL: 20 })).toBeCloseTo(0.8, 9);
+  it('pins the rule’s figures', () => {
+    expect(RACKING_STAGES).toEqual(['primary', 'secondary', 'ageing']);
+    expect(RACKING_LOSS_FIXED_L).toBe(0.03);
+    expect(RACKING_LOSS_FRACTION).toEqual({ primary: 0.04, secondary: 0.025, ageing: 0.01 });
+  });
+
+  it('defaults to a secondary racking and takes the cellar’s own loss share instead of the rule', () => {
+    expect(rackingLoss({ volumeL: 20 })).toBeCloseTo(0.53, 9);
     expect(rackingLoss({ volumeL: 20, lossFraction: 0.15 })).toBeCloseTo(3, 9);
+    expect(rackingLoss({ volumeL: 20, lossFraction: 0 })).toBe(0);
+  });
+
+  it('never loses more than there is', () => {
+    expect(rackingLoss({ volumeL: 0.02 })).toBe(0.02);
+    expect(rackingLoss({ volumeL: 0 })).toBe(0);
   });
 
   it('rejects impossible input', () => {
     expectInputError(() => rackingLoss({ volumeL: -3 }), 'volumeL');
-    expectInputError(() => rackingLoss({ volumeL: 3, lossFraction: 0.9 }), 'lossFraction');
+    expectInputError(() => rackingLoss({ volumeL: 3, lossFraction: 0.9 }), 'lossFraction', 'Loss share must be between 0.00 and 0.50 (got 0.90).');
     expectInputError(() => rackingLoss({ volumeL: 3, stage: 'tertiary' as never }), 'stage');
   });
 });
@@ -57,10 +105,12 @@ describe('bestVesselForRacking', () => {
   ];
 
   it('picks the smallest vessel that holds the volume after the lees are left behind', () => {
-    // 20 L off primary lees loses 1.6 L (8 %), leaving 18.4 L: the 19 L carboy.
-    expect(bestVesselForRacking({ volumeL: 20, candidates: free, stage: 'primary' })?.id).toBe('carboy-3');
-    // 20 L at a later racking loses 0.4 L, leaving 19.6 L: too much for 19 L.
-    expect(bestVesselForRacking({ volumeL: 20, candidates: free, stage: 'ageing' })?.id).toBe('carboy-1');
+    // 19.5 L off primary lees loses 0.03 + 0.78 = 0.81 L, leaving 18.69 L: the 19 L carboy.
+    expect(bestVesselForRacking({ volumeL: 19.5, candidates: free, stage: 'primary' })?.id).toBe('carboy-3');
+    // 19.5 L at a later racking loses 0.03 + 0.195 = 0.225 L, leaving 19.275 L: too much for 19 L.
+    expect(bestVesselForRacking({ volumeL: 19.5, candidates: free, stage: 'ageing' })?.id).toBe('carboy-1');
+    // A secondary racking by default: 19.5 L loses 0.5175 L, leaving 18.98 L: the 19 L carboy.
+    expect(bestVesselForRacking({ volumeL: 19.5, candidates: free })?.id).toBe('carboy-3');
   });
 
   it('uses a loss the hand gives instead of the rule of thumb', () => {
@@ -115,10 +165,19 @@ describe('bottlesFrom — full bottles after losses (arithmetic)', () => {
   });
 
   it('rejects impossible input, naming the argument', () => {
-    expectInputError(() => bottlesFrom({ volumeL: 10, bottleMl: 0 }), 'bottleMl');
+    expectInputError(() => bottlesFrom({ volumeL: 10, bottleMl: 0 }), 'bottleMl', 'Bottle size must be at least 1 mL (got 0 mL).');
+    expectInputError(() => bottlesFrom({ volumeL: 10, bottleMl: 0.5 }), 'bottleMl');
+    expect(bottlesFrom({ volumeL: 0.01, bottleMl: 1 })).toEqual({ bottles: 10, remainderMl: 0 });
     expectInputError(() => bottlesFrom({ volumeL: 10, bottleMl: 750, lossL: 11 }), 'lossL');
     expectInputError(() => bottlesFrom({ volumeL: -10, bottleMl: 750 }), 'volumeL');
     expectInputError(() => bottlesFrom({ volumeL: 10, bottleMl: Number.POSITIVE_INFINITY }), 'bottleMl');
+  });
+
+  it('refuses a volume too large to count in bottles rather than answer Infinity or an inexact count', () => {
+    expectInputError(() => bottlesFrom({ volumeL: 1e308, bottleMl: 750 }), 'volumeL', 'Volume (1e+308 L) is too large to count in bottles.');
+    expectInputError(() => bottlesFrom({ volumeL: 1e13, bottleMl: 1 }), 'volumeL');
+    // 2⁵³ − 1 mL of 1 mL bottles is the largest exact count: 9 007 199 254 740.991 L.
+    expect(bottlesFrom({ volumeL: 9e12, bottleMl: 1000 }).bottles).toBe(9e12);
   });
 });
 
@@ -134,6 +193,7 @@ describe('casesFrom', () => {
   });
 
   it('defaults to 12 bottles a case', () => {
+    expect(DEFAULT_BOTTLES_PER_CASE).toBe(12);
     expect(casesFrom(30)).toEqual({ cases: 2, loose: 6 });
   });
 
@@ -142,5 +202,42 @@ describe('casesFrom', () => {
     expectInputError(() => casesFrom(-1), 'bottles');
     expectInputError(() => casesFrom(10, 0), 'perCase');
     expectInputError(() => casesFrom(10, 1.5), 'perCase');
+  });
+});
+
+describe('vessel and bottle messages name the value and its unit', () => {
+  it('says which figure is wrong, in litres', () => {
+    expectInputError(() => headspace({ capacityL: -1, volumeL: 0 }), 'capacityL', 'Vessel capacity must be more than zero (got -1 L).');
+    expectInputError(() => headspace({ capacityL: 5, volumeL: -1 }), 'volumeL', 'Volume cannot be negative (got -1 L).');
+    expectInputError(() => rackingLoss({ volumeL: -3 }), 'volumeL', 'Volume cannot be negative (got -3 L).');
+    expectInputError(() => bestVesselForRacking({ volumeL: -1, candidates: [] }), 'volumeL', 'Volume cannot be negative (got -1 L).');
+    expectInputError(() => bestVesselForRacking({ volumeL: 5, candidates: [], lossL: -1 }), 'lossL', 'Expected loss cannot be negative (got -1 L).');
+    expectInputError(
+      () => bestVesselForRacking({ volumeL: 5, candidates: [], lossL: 6 }),
+      'lossL',
+      'Expected loss (6 L) cannot be more than the volume racked (5 L).',
+    );
+    expectInputError(
+      () => bestVesselForRacking({ volumeL: 5, candidates: [{ id: 'a', capacityL: 10 }, { id: 'b', capacityL: 0 }] }),
+      'candidates[1].capacityL',
+      'Capacity of candidate 2 must be more than zero (got 0 L).',
+    );
+    expectInputError(() => bottlesFrom({ volumeL: -10, bottleMl: 750 }), 'volumeL', 'Volume cannot be negative (got -10 L).');
+    expectInputError(() => bottlesFrom({ volumeL: 10, bottleMl: 750, lossL: -1 }), 'lossL', 'Loss cannot be negative (got -1 L).');
+    expectInputError(() => bottlesFrom({ volumeL: 10, bottleMl: 750, lossL: 11 }), 'lossL', 'Loss (11 L) cannot be more than the volume (10 L).');
+  });
+
+  it('names a candidate that is not a vessel', () => {
+    expectInputError(
+      () => bestVesselForRacking({ volumeL: 5, candidates: [{ id: 'a', capacityL: 10 }, null as never] }),
+      'candidates[1]',
+      'Candidate 2 must be a vessel with a capacity.',
+    );
+    expectInputError(() => bestVesselForRacking({ volumeL: 5, candidates: ['x' as never] }), 'candidates[0]');
+    expectInputError(() => bestVesselForRacking({ volumeL: 5, candidates: null as never }), 'candidates', 'Candidates must be a list of vessels with a capacity.');
+  });
+
+  it('accepts a loss as large as the whole volume', () => {
+    expect(bestVesselForRacking({ volumeL: 5, candidates: [{ id: 'a', capacityL: 1 }], lossL: 5 })?.id).toBe('a');
   });
 });

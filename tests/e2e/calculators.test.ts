@@ -1,6 +1,7 @@
 import { beforeAll, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import {
+  abvBy,
   abvHighGravity,
   abvSimple,
   brixToSg,
@@ -68,10 +69,10 @@ describeInBrowser('Calculators page, in Chromium', (env) => {
     await page.fill('[data-test=abv-og]', '1.085');
     await page.fill('[data-test=abv-fg]', '0.998');
 
-    const high = abvHighGravity(1.085, 0.998);
+    const balling = abvBy(1.085, 0.998);
     const simple = abvSimple(1.085, 0.998);
-    await expect.poll(() => page.getAttribute('[data-test=abv-result]', 'data-value')).toBe(String(high));
-    expect(await page.textContent('[data-test=abv-result]')).toBe(`${high.toFixed(1)} % ABV`);
+    await expect.poll(() => page.getAttribute('[data-test=abv-result]', 'data-value')).toBe(String(balling));
+    expect(await page.textContent('[data-test=abv-result]')).toBe(`${balling.toFixed(1)} % ABV`);
     expect(await page.getAttribute('[data-test=abv-simple]', 'data-value')).toBe(String(simple));
     expect(await page.textContent('[data-test=abv-simple]')).toBe(`${simple.toFixed(1)} % ABV`);
     // The definition of the simple formula, worked by hand: (1.085 − 0.998) × 131.25 = 11.41875.
@@ -79,8 +80,8 @@ describeInBrowser('Calculators page, in Chromium', (env) => {
 
     // Footnote names the formula and its source; the estimate caution sits beside the result.
     const card = (await page.textContent('[data-test=calc-abv]')) ?? '';
-    expect(card).toContain(FORMULA_SOURCES.abvHighGravity.name);
-    expect(card).toContain(FORMULA_SOURCES.abvHighGravity.source);
+    expect(card).toContain(FORMULA_SOURCES.abvBalling.name);
+    expect(card).toContain(FORMULA_SOURCES.abvBalling.source);
     expect(await page.textContent('[data-test=calc-abv] [data-test=caution-estimate]')).toContain(CAUTION_ESTIMATE);
     // The sulfite caution stands beside the stabiliser doses.
     expect(await page.textContent('[data-test=calc-stabiliser] [data-test=caution-sulfites]')).toContain(CAUTION_SULFITES);

@@ -1,5 +1,5 @@
 import {
-  abvHighGravity,
+  abvBy,
   abvSimple,
   ageMilestones,
   apparentAttenuation,
@@ -18,7 +18,8 @@ export interface BatchFigures {
   og: number | null;
   /** Latest temperature-corrected reading. */
   currentSg: number | null;
-  abvHighGravity: number | null;
+  /** By the default formula (shared/calc DEFAULT_ABV_FORMULA). */
+  abvEstimate: number | null;
   abvSimple: number | null;
   attenuation: number | null;
   potentialAbv: number | null;
@@ -51,7 +52,7 @@ export function batchFigures(batch: Pick<BatchDetail, 'og' | 'yeastToleranceAbv'
   return {
     og,
     currentSg,
-    abvHighGravity: withBoth(abvHighGravity),
+    abvEstimate: withBoth((og, sg) => abvBy(og, sg)),
     abvSimple: withBoth(abvSimple),
     attenuation: withBoth(apparentAttenuation),
     potentialAbv: og === null ? null : maybe(() => potentialAbv(og)),

@@ -1,4 +1,11 @@
-import { formatMass, type FermentationState, type Strength, type Sweetness, type UnitSystem } from '@shared/calc';
+import {
+  formatMass,
+  type AbvFormula,
+  type FermentationState,
+  type Strength,
+  type Sweetness,
+  type UnitSystem,
+} from '@shared/calc';
 
 /**
  * A number to a fixed count of decimals, never "-0".
@@ -15,6 +22,13 @@ export const sg = (value: number) => fixed(value, 3);
 
 /** % ABV to one decimal: a hydrometer reading supports no more. */
 export const abv = (value: number) => `${fixed(value, 1)} % ABV`;
+
+/** Each ABV formula's name as a figure's heading and as the line under it. */
+export const ABV_FORMULA_WORDS: Record<AbvFormula, { name: string; by: string }> = {
+  balling: { name: 'Balling relations', by: 'By the Balling relations.' },
+  simple: { name: 'Linear formula', by: 'By the linear formula.' },
+  'high-gravity': { name: 'High-gravity fit', by: 'By the high-gravity fit.' },
+};
 
 /**
  * A small dose (stabilisers) in grams, as kitchen and jeweller's scales weigh it; US units add ounces.
@@ -37,10 +51,10 @@ export const STRENGTH_WORDS: Record<Strength, string> = { hydromel: 'Hydromel', 
 export const STATE_WORDS: Record<FermentationState, { label: string; meaning: string; colour: string }> = {
   active: { label: 'Active', meaning: 'Still fermenting well, or too few readings to judge yet.', colour: 'info' },
   slowing: { label: 'Slowing', meaning: 'Still dropping, but slowly: keep taking readings.', colour: 'secondary' },
-  finished: { label: 'Finished', meaning: 'Steady at or near the expected finish.', colour: 'positive' },
+  finished: { label: 'Finished', meaning: 'Steady, and either dry or with the yeast at its tolerance.', colour: 'positive' },
   stuck: {
     label: 'Stuck',
-    meaning: 'Steady, but well above the expected finish while the yeast is short of its tolerance.',
+    meaning: 'Steady, but above the dry end while the yeast is more than a point short of its tolerance.',
     colour: 'negative',
   },
 };
