@@ -10,36 +10,17 @@ import 'reflect-metadata';
 import fs from 'node:fs';
 import http from 'node:http';
 import net from 'node:net';
-import os from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import request from 'supertest';
 import { createApp } from '../../server/app';
 import { hashPassword } from '../../server/accounts/passwords';
-import { createDataSource } from '../../server/db/data-source';
-import { recreateDatabase } from '../../server/db/ensure-database';
-import { startLocalPostgres } from '../../server/db/local-postgres';
+import { withBenchDatabase } from './bench-database';
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 100_000);
 const STEP_MS = 5 * 60_000;
 
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = net.createServer().listen(0, '127.0.0.1', () => {
-      const p = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(p));
-    });
-  });
-
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cellarwright-import-bench-'));
-fs.chmodSync(dir, 0o755);
-const cluster = startLocalPostgres({ dataDir: path.join(dir, 'pg'), port: await freePort(), log: () => undefined });
-try {
-  await recreateDatabase(cluster.adminUrl, 'bench');
-  const ds = createDataSource(cluster.urlFor('bench'));
-  await ds.initialize();
-  await ds.runMigrations();
-
+await withBenchDatabase(async ({ ds, dir }) => {
   const [{ id: userId }] = await ds.query(
     `INSERT INTO users (email, display_name, password_hash) VALUES ('bench@example.test', 'Bench Keeper', $1) RETURNING id`,
     [await hashPassword('bench-password')],
@@ -115,8 +96,4 @@ try {
   const [{ n }] = await ds.query(`SELECT count(*)::int AS n FROM journal_entries WHERE batch_id = $1 AND kind = 'reading'`, [batchId]);
   console.log(`readings in the journal: ${n}`);
   server.close();
-  await ds.destroy();
-} finally {
-  cluster.stop();
-  fs.rmSync(dir, { recursive: true, force: true });
-}
+});

@@ -6,17 +6,11 @@
  * test: `npm run bench:lists`.
  */
 import 'reflect-metadata';
-import fs from 'node:fs';
-import net from 'node:net';
-import os from 'node:os';
-import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import request from 'supertest';
 import { createApp } from '../../server/app';
 import { hashPassword } from '../../server/accounts/passwords';
-import { createDataSource } from '../../server/db/data-source';
-import { recreateDatabase } from '../../server/db/ensure-database';
-import { startLocalPostgres } from '../../server/db/local-postgres';
+import { withBenchDatabase } from './bench-database';
 
 const BATCHES = 3000;
 const VESSELS = 6000;
@@ -24,23 +18,12 @@ const ENTRIES_PER_BATCH = 30;
 const RUNS = 15;
 const TARGET_MS = 250;
 
-const port = await new Promise<number>((resolve) => {
-  const s = net.createServer().listen(0, '127.0.0.1', () => {
-    const p = (s.address() as net.AddressInfo).port;
-    s.close(() => resolve(p));
-  });
-});
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cellarwright-bench-'));
-fs.chmodSync(dir, 0o755);
-const cluster = startLocalPostgres({ dataDir: path.join(dir, 'pg'), port, log: () => undefined });
-try {
-  await recreateDatabase(cluster.adminUrl, 'bench');
-  const ds = createDataSource(cluster.urlFor('bench'));
-  await ds.initialize();
-  await ds.runMigrations();
-
+await withBenchDatabase(async ({ ds }) => {
   const seedStart = performance.now();
-  const [{ id: userId }] = await ds.query(`INSERT INTO users (email, display_name, password_hash) VALUES ('bench@example.test', 'Bench Keeper', $1) RETURNING id`, [await hashPassword('bench-password')]);
+  const [{ id: userId }] = await ds.query(
+    `INSERT INTO users (email, display_name, password_hash) VALUES ('bench@example.test', 'Bench Keeper', $1) RETURNING id`,
+    [await hashPassword('bench-password')],
+  );
   const [{ id: cellarId }] = await ds.query(`INSERT INTO cellars (name) VALUES ('Large test cellar') RETURNING id`);
   await ds.query(`INSERT INTO memberships (cellar_id, user_id, role) VALUES ($1, $2, 'keeper')`, [cellarId, userId]);
   await ds.query(
@@ -85,7 +68,9 @@ try {
     [cellarId],
   );
   await ds.query('ANALYZE');
-  console.log(`Seeded ${BATCHES} batches, ${VESSELS} vessels, ${BATCHES * ENTRIES_PER_BATCH} journal entries in ${((performance.now() - seedStart) / 1000).toFixed(1)} s`);
+  console.log(
+    `Seeded ${BATCHES} batches, ${VESSELS} vessels, ${BATCHES * ENTRIES_PER_BATCH} journal entries in ${((performance.now() - seedStart) / 1000).toFixed(1)} s`,
+  );
 
   const app = createApp({ dataSource: ds, sessionSecret: 'bench-secret-long-enough-0123456789abcdef', cookieSecure: false });
   const agent = request.agent(app);
@@ -118,8 +103,4 @@ try {
     console.log(`${name.padEnd(36)} median ${median.toFixed(0).padStart(4)} ms  ${median < TARGET_MS ? 'OK' : 'SLOW'}`);
   }
   console.log(slow === 0 ? `All lists under ${TARGET_MS} ms: OK` : `${slow} list(s) at or over ${TARGET_MS} ms: SLOW`);
-  await ds.destroy();
-} finally {
-  cluster.stop();
-  fs.rmSync(dir, { recursive: true, force: true });
-}
+});

@@ -6,39 +6,19 @@
  * A script, not a test: `npm run bench:reminders`.
  */
 import 'reflect-metadata';
-import fs from 'node:fs';
-import net from 'node:net';
-import os from 'node:os';
-import path from 'node:path';
 import { performance } from 'node:perf_hooks';
-import { createDataSource } from '../../server/db/data-source';
-import { recreateDatabase } from '../../server/db/ensure-database';
-import { startLocalPostgres } from '../../server/db/local-postgres';
 import { runReminderPass } from '../../server/mail/reminder-pass';
 import { systemActor } from '../../server/core/actor';
 import { localDate } from '../../server/core/local-date';
 import { inTransaction } from '../../server/core/unit-of-work';
 import { tasksDue } from '../../server/tasks/tasks.service';
+import { withBenchDatabase } from './bench-database';
 
 const BATCHES = 10_000;
 const DUE_TASKS = 2_000;
 const TARGET_MS = 5_000;
 
-const port = await new Promise<number>((resolve) => {
-  const s = net.createServer().listen(0, '127.0.0.1', () => {
-    const p = (s.address() as net.AddressInfo).port;
-    s.close(() => resolve(p));
-  });
-});
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cellarwright-bench-'));
-fs.chmodSync(dir, 0o755);
-const cluster = startLocalPostgres({ dataDir: path.join(dir, 'pg'), port, log: () => undefined });
-try {
-  await recreateDatabase(cluster.adminUrl, 'bench');
-  const ds = createDataSource(cluster.urlFor('bench'));
-  await ds.initialize();
-  await ds.runMigrations();
-
+await withBenchDatabase(async ({ ds }) => {
   const [{ id: cellarId }] = await ds.query(`INSERT INTO cellars (name, time_zone) VALUES ('Large test cellar', 'Europe/Berlin') RETURNING id`);
   const users: { id: string }[] = await ds.query(
     `INSERT INTO users (email, display_name, password_hash) VALUES ('instant@example.test', 'Instant', 'x'), ('digest@example.test', 'Digest', 'x') RETURNING id`,
@@ -84,9 +64,5 @@ try {
     tasksDue(systemActor(cellarId, 'schedule', 'guest'), tx, { until: localDate(new Date(), 'Europe/Berlin') }),
   );
   console.log(`of which finding the ${due.length} due tasks alone takes ${(performance.now() - dueStart).toFixed(0)} ms`);
-  await ds.destroy();
   if (ms >= TARGET_MS) process.exitCode = 1;
-} finally {
-  cluster.stop();
-  fs.rmSync(dir, { recursive: true, force: true });
-}
+});

@@ -7,20 +7,14 @@
  * A script, not a test: `npm run bench:tasks`.
  */
 import 'reflect-metadata';
-import fs from 'node:fs';
-import net from 'node:net';
-import os from 'node:os';
-import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import request from 'supertest';
 import { createApp } from '../../server/app';
 import { hashPassword } from '../../server/accounts/passwords';
 import { systemActor } from '../../server/core/actor';
 import { inTransaction } from '../../server/core/unit-of-work';
-import { createDataSource } from '../../server/db/data-source';
-import { recreateDatabase } from '../../server/db/ensure-database';
-import { startLocalPostgres } from '../../server/db/local-postgres';
 import { tasksDue } from '../../server/tasks/tasks.service';
+import { withBenchDatabase } from './bench-database';
 
 const BATCHES = Number(process.env.BENCH_BATCHES ?? 10_000);
 const READINGS_PER_BATCH = 27;
@@ -28,21 +22,7 @@ const RUNS = 5;
 const PAGE_TARGET_MS = 150;
 const RECOMPUTE_TARGET_MS = 5000;
 
-const port = await new Promise<number>((resolve) => {
-  const s = net.createServer().listen(0, '127.0.0.1', () => {
-    const p = (s.address() as net.AddressInfo).port;
-    s.close(() => resolve(p));
-  });
-});
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cellarwright-bench-'));
-fs.chmodSync(dir, 0o755);
-const cluster = startLocalPostgres({ dataDir: path.join(dir, 'pg'), port, log: () => undefined });
-try {
-  await recreateDatabase(cluster.adminUrl, 'bench');
-  const ds = createDataSource(cluster.urlFor('bench'));
-  await ds.initialize();
-  await ds.runMigrations();
-
+await withBenchDatabase(async ({ ds }) => {
   const seedStart = performance.now();
   const [{ id: userId }] = await ds.query(
     `INSERT INTO users (email, display_name, password_hash) VALUES ('bench@example.test', 'Bench Keeper', $1) RETURNING id`,
@@ -124,8 +104,4 @@ try {
   await time('recompute every batch (tasksDue)', RECOMPUTE_TARGET_MS, async () => {
     await inTransaction(ds, 'read', (tx) => tasksDue(job, tx, { until }));
   });
-  await ds.destroy();
-} finally {
-  cluster.stop();
-  fs.rmSync(dir, { recursive: true, force: true });
-}
+});
