@@ -84,7 +84,8 @@ export function journalColumns({ units, timeZone }: ExportStyle): CsvColumn<Expo
     { header: `loss (${u.volumeHeader})`, value: (e) => u.volume(num(field(e, 'lossL'))) },
     { header: `from vessels (${u.volumeHeader})`, value: (e) => vesselList(field(e, 'from'), volume) },
     { header: `to vessels (${u.volumeHeader})`, value: (e) => vesselList(field(e, 'to') ?? field(e, 'vessels'), volume) },
-    { header: 'category', value: (e) => text(field(e, 'category')) },
+    // An emptying's reason (spoiled, spilled…) is its category; its `reason` field is not an amendment's reason.
+    { header: 'category', value: (e) => text(field(e, 'category')) ?? (e.kind === 'emptied' ? text(field(e, 'reason')) : null) },
     { header: 'name', value: (e) => text(field(e, 'name')) ?? text(field(e, 'childName')) ?? text(field(e, 'vesselName')) },
     { header: 'amount', value: (e) => num(field(e, 'amount')) },
     { header: 'amount unit', value: (e) => text(field(e, 'unit')) },

@@ -61,7 +61,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return send(400, { error: 'bad_request', message: 'The address contains characters that cannot be read.' });
   }
   const database = databaseErrorAnswer(err);
-  if (database) return send(database.status, { error: database.code, message: database.message });
+  if (database) return send(database.status, { error: database.code, message: database.message, ...database.details });
   console.error(`[error] ${req.method} ${req.originalUrl}`, err);
   return send(500, { error: 'internal', message: 'Something went wrong on our side. Please try again.' });
 };

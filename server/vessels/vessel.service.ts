@@ -141,7 +141,6 @@ export interface VesselUpdateInput {
 export async function updateVessel(actor: Actor, tx: EntityManager, vesselId: string, input: VesselUpdateInput): Promise<VesselDto> {
   requireRole(actor, 'hand');
   const { cellarId } = actor;
-  requireRole(actor, 'guest');
   const { expectedVersion, ...changes } = input;
   const vessel = await lockOne(tx, cellarId, vesselId, expectedVersion);
   if (changes.name !== undefined) await requireFreeVesselName(tx, cellarId, changes.name, vessel.id);

@@ -11,7 +11,9 @@ import {
   vesselRetireSchema,
   vesselUpdateSchema,
 } from '../../shared/schemas/vessels';
+import { emptyVesselRequestSchema } from '../../shared/schemas/vessel-emptying';
 import { cellarHandler } from '../http/handle';
+import { idempotent } from '../http/idempotency';
 import {
   createVessel,
   deleteVessel,
@@ -23,6 +25,7 @@ import {
   suggestRackTarget,
   updateVessel,
 } from './vessel.service';
+import { emptyVessel } from './emptying.service';
 
 const vesselParams = z.object({ vesselId: uuidSchema });
 
@@ -73,7 +76,21 @@ export function vesselRoutes(ds: DataSource): Router {
   );
   router.post(
     '/:vesselId/cleaning',
-    cellar({ params: vesselParams, body: vesselCleaningSchema }, ({ params, body }, actor, tx) => setCleaning(actor, tx, params.vesselId, body)),
+    cellar(
+      { params: vesselParams, body: vesselCleaningSchema },
+      idempotent(({ params, body }, actor, tx) => setCleaning(actor, tx, params.vesselId, body)),
+    ),
+  );
+  router.post(
+    '/:vesselId/emptying',
+    cellar(
+      { params: vesselParams, body: emptyVesselRequestSchema },
+      idempotent(async ({ params, body }, actor, tx, _req, res) => {
+        const result = await emptyVessel(actor, tx, params.vesselId, body);
+        res.status(201);
+        return result;
+      }),
+    ),
   );
   router.post(
     '/:vesselId/retirement',
@@ -81,7 +98,10 @@ export function vesselRoutes(ds: DataSource): Router {
   );
   router.put(
     '/:vesselId/place',
-    cellar({ params: vesselParams, body: moveSchema }, ({ params, body }, actor, tx) => moveVessel(actor, tx, params.vesselId, body)),
+    cellar(
+      { params: vesselParams, body: moveSchema },
+      idempotent(({ params, body }, actor, tx) => moveVessel(actor, tx, params.vesselId, body)),
+    ),
   );
   router.delete(
     '/:vesselId',

@@ -45,7 +45,7 @@ function bulkStage(rackings: number, stabilised: boolean): Stage {
   return rackings >= 1 ? 'secondary' : 'primary';
 }
 
-/** 'bottled' or 'finished' once nothing is left in vessels after a bottling, split or blend; else null. */
+/** 'bottled' or 'finished' once nothing is left in vessels after a bottling, split, blend or emptying; else null. */
 function emptiedStage(ended: { bottled: boolean; movedOn: boolean }, contents: BatchContents): Stage | null {
   if (contents.volumeInVesselsL > 0) return null;
   if (ended.bottled && contents.bottlesLeft > 0) return 'bottled';
@@ -57,12 +57,13 @@ function emptiedStage(ended: { bottled: boolean; movedOn: boolean }, contents: B
  * secondary after it; bulk ageing after the second racking, or when stabilised after the
  * first (sulfite in a must before pitching, common practice, leaves it in primary); bottled
  * when a bottling left nothing in vessels; finished when nothing is left in vessels or
- * bottles. A split or blend carries on from where its parents were.
+ * bottles (a vessel poured out counts as the liquid leaving, like a blend). A split or blend
+ * carries on from where its parents were.
  */
 export function deriveStage(input: StageInput): Stage {
   const ended = {
     bottled: input.events.some((e) => e.kind === 'bottled'),
-    movedOn: input.events.some((e) => e.kind === 'split' || e.kind === 'blended'),
+    movedOn: input.events.some((e) => e.kind === 'split' || e.kind === 'blended' || e.kind === 'emptied'),
   };
   const emptied = emptiedStage(ended, input);
   if (emptied) return emptied;
@@ -87,7 +88,7 @@ export function advanceStage(current: Stage, event: StageEvent | null, contents:
   const ended = {
     // Bottles left in cases mean a bottling happened, even when the stage has moved past it.
     bottled: current === 'bottled' || event?.kind === 'bottled' || contents.bottlesLeft > 0,
-    movedOn: current === 'finished' || event?.kind === 'split' || event?.kind === 'blended',
+    movedOn: current === 'finished' || event?.kind === 'split' || event?.kind === 'blended' || event?.kind === 'emptied',
   };
   const emptied = emptiedStage(ended, contents);
   if (emptied) return emptied;

@@ -28,8 +28,18 @@ export interface VesselSeed {
 }
 
 /**
+ * `name`, or `name` with a random tag when the cellar already has a vessel called that
+ * (letter case aside): vessel names are unique in a cellar, and factories called twice for
+ * one cellar must not clash.
+ */
+export async function unusedVesselName(db: DataSource | EntityManager, cellarId: string, name: string): Promise<string> {
+  const [taken] = await db.query(`SELECT 1 FROM vessels WHERE cellar_id = $1 AND lower(name) = lower($2)`, [cellarId, name]);
+  return taken ? `${name} ${randomLabelCode()}` : name;
+}
+
+/**
  * A vessel, empty unless it holds `seed.batch`; dirty unless told otherwise, and a sanitised
- * one sanitised now unless told when.
+ * one sanitised now unless told when. A name the cellar already uses gets a random tag.
  * @param db - the data source, or the transaction that also writes the batch
  */
 export async function makeVessel(db: DataSource | EntityManager, cellarId: string, seed: VesselSeed = {}): Promise<Vessel> {
@@ -41,7 +51,7 @@ export async function makeVessel(db: DataSource | EntityManager, cellarId: strin
     repo.create({
       cellarId,
       code: seed.code ?? randomLabelCode(),
-      name: seed.name ?? `Carboy ${randomLabelCode()}`,
+      name: await unusedVesselName(db, cellarId, seed.name ?? `Carboy ${randomLabelCode()}`),
       kind: seed.kind ?? 'carboy',
       material: seed.material ?? 'glass',
       capacityL,

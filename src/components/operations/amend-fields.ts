@@ -1,17 +1,20 @@
 import { z } from 'zod';
 import { CORRECTABLE_FIELDS, correctableFieldNames, isCorrectable, type CorrectableKind } from '@shared/domain/journal';
 import type { JournalKind } from '@shared/schemas/journal';
+import { EMPTYING_REASON_OPTIONS } from '@shared/schemas/vessel-emptying';
 
 /**
  * How the correction form shows each correctable field. Which fields may be corrected, and
  * the rules they must meet, live in shared/domain/journal.ts (the server checks the same);
  * only labels and input types are the client's.
  */
-export type AmendFieldType = 'number' | 'temperature' | 'text' | 'longtext' | 'date';
+export type AmendFieldType = 'number' | 'temperature' | 'volume' | 'text' | 'longtext' | 'date' | 'choice';
 export interface AmendField {
   key: string;
   label: string;
   type: AmendFieldType;
+  /** The values a 'choice' field offers. */
+  options?: readonly { value: string; label: string }[];
 }
 
 /** A label and input for every correctable field of every kind: a field without one does not compile. */
@@ -41,9 +44,13 @@ const PRESENTATION: AmendPresentation = {
   started: {
     og: { label: 'Original gravity', type: 'number' },
     startedOn: { label: 'Started on', type: 'date' },
-    volumeL: { label: 'Volume (litres)', type: 'number' },
+    volumeL: { label: 'Volume', type: 'volume' },
     yeastName: { label: 'Yeast', type: 'text' },
     yeastToleranceAbv: { label: 'Yeast alcohol tolerance (% ABV)', type: 'number' },
+  },
+  emptied: {
+    reason: { label: 'Why it was emptied', type: 'choice', options: EMPTYING_REASON_OPTIONS },
+    note: { label: 'Note', type: 'longtext' },
   },
 };
 

@@ -1,0 +1,8 @@
+import { operationResultSchema, type OperationResult } from '@shared/schemas/batch-detail';
+import type { EmptyVesselRequest } from '@shared/schemas/vessel-emptying';
+import { request } from './http';
+import { cellarPath } from './paths';
+
+/** Pours a vessel out (journalled on its batch, the vessel left dirty); answers the batch as it is now. */
+export const emptyVessel = (cellarId: string, vesselId: string, body: EmptyVesselRequest): Promise<OperationResult> =>
+  request('POST', cellarPath(cellarId, 'vessels', vesselId, 'emptying'), operationResultSchema, body);
