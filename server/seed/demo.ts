@@ -6,6 +6,7 @@ import { Cellar } from '../entities/cellar.entity';
 import { Membership } from '../entities/membership.entity';
 import { User } from '../entities/user.entity';
 import { seedDemoRecords } from './demo-cellar';
+import { DEMO_DEVICE_TOKEN, seedDemoDevice } from './demo-device';
 import { seedDemoTasks } from './demo-tasks';
 
 /** Shared by every demo account; printed at start-up. Demo only. */
@@ -57,6 +58,7 @@ export async function seedDemoIfEmpty(ds: DataSource): Promise<boolean> {
     const homePeople = { keeper: memberActor(home.id, maren.id, 'keeper'), hand: memberActor(home.id, tobias.id, 'hand') };
     await seedDemoRecords(tx, homePeople);
     await seedDemoTasks(tx, homePeople);
+    await seedDemoDevice(tx, homePeople.keeper);
 
     const club = await cellars.save(
       cellars.create({
@@ -84,4 +86,5 @@ export function printDemoSignIns(justSeeded: boolean): void {
   ] as const) {
     console.log(`  ${role}  ${person.email}  password: ${DEMO_PASSWORD}`);
   }
+  console.log(`  Demo hydrometer token (README, "Digital hydrometers"): ${DEMO_DEVICE_TOKEN}`);
 }

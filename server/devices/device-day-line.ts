@@ -1,0 +1,22 @@
+import type { DeviceDayFigures } from './device-series-queries';
+
+const gravity = (sg: number) => sg.toFixed(3);
+const fahrenheit = (c: number) => (c * 9) / 5 + 32;
+
+function temperatureRange(min: number | null, max: number | null, unitSystem: 'metric' | 'us'): string | null {
+  if (min === null || max === null) return null;
+  const [unit, low, high] = unitSystem === 'us' ? ['°F', fahrenheit(min), fahrenheit(max)] : ['°C', min, max];
+  const [a, b] = [Math.round(low as number), Math.round(high as number)];
+  return a === b ? `${a} ${unit}` : `${a}–${b} ${unit}`;
+}
+
+/**
+ * The journal's one line for a day of device readings, worked out when the journal is read
+ * (never stored): "Hydrometer: 96 readings, 1.020 → 1.012, 18–19 °C".
+ */
+export function deviceDayLine(day: DeviceDayFigures, unitSystem: 'metric' | 'us'): string {
+  const readings = day.count === 1 ? '1 reading' : `${day.count} readings`;
+  const gravities = day.count === 1 ? gravity(day.firstSg) : `${gravity(day.firstSg)} → ${gravity(day.lastSg)}`;
+  const temperature = temperatureRange(day.minTemperatureC, day.maxTemperatureC, unitSystem);
+  return `Hydrometer: ${[readings, gravities, temperature].filter(Boolean).join(', ')}`;
+}
