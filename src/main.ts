@@ -10,6 +10,7 @@ import 'quasar/dist/quasar.css';
 import './css/app.css';
 import App from './App.vue';
 import { setUnauthorizedHandler } from './api/http';
+import { startOffline } from './offline/start-offline';
 import { createAppRouter } from './router';
 import { routeTo } from './router/locations';
 import { useSessionStore } from './stores/session';
@@ -32,5 +33,8 @@ setUnauthorizedHandler(() => {
   // Before the first navigation settles the route is the bare start location: the guard decides then.
   if (here.matched.length > 0 && !here.meta.public) void router.push(routeTo('sign-in', {}, { next: here.fullPath }));
 });
+
+// Offline: the service worker, the queue of writes made without signal (src/offline/).
+startOffline(pinia);
 
 app.mount('#app');

@@ -17,6 +17,7 @@ import {
 } from '../../shared/schemas/journal';
 import type { Actor } from '../core/actor';
 import { cellarHandler } from '../http/handle';
+import { idempotent } from '../http/idempotency';
 import { addAddition, removeAddition } from './additions.service';
 import { amendEntry } from './amendment.service';
 import { addNote, degas, taste } from './notes.service';
@@ -45,8 +46,10 @@ export function batchOperationRoutes(ds: DataSource): Router {
   const post = <B extends ZodType>(path: string, body: B, operation: Operation<B>) =>
     router.post(
       path,
-      cellar({ params: batchParams, body }, ({ params, body: input }, actor, tx, _req, res) =>
-        created(res, operation(actor, tx, params.batchId, input as z.output<B>)),
+      cellar(
+        { params: batchParams, body },
+        // A phone may resend an operation it queued offline: the same key records it once.
+        idempotent(({ params, body: input }, actor, tx, _req, res) => created(res, operation(actor, tx, params.batchId, input as z.output<B>))),
       ),
     );
 

@@ -5,6 +5,7 @@ import { drawDownRequestSchema } from '../../shared/schemas/bottles';
 import { uuidSchema } from '../../shared/schemas/common';
 import { moveSchema } from '../../shared/schemas/places';
 import { cellarHandler } from '../http/handle';
+import { idempotent } from '../http/idempotency';
 import { drawDown, getCase, moveCase } from './case.service';
 
 const caseParams = z.object({ caseId: uuidSchema });
@@ -19,15 +20,21 @@ export function caseRoutes(ds: DataSource): Router {
   );
   router.post(
     '/:caseId/departures',
-    cellar({ params: caseParams, body: drawDownRequestSchema }, async ({ params, body }, actor, tx, req, res) => {
-      const updated = await drawDown(actor, tx, params.caseId, body);
-      res.status(201);
-      return updated;
-    }),
+    cellar(
+      { params: caseParams, body: drawDownRequestSchema },
+      idempotent(async ({ params, body }, actor, tx, req, res) => {
+        const updated = await drawDown(actor, tx, params.caseId, body);
+        res.status(201);
+        return updated;
+      }),
+    ),
   );
   router.put(
     '/:caseId/place',
-    cellar({ params: caseParams, body: moveSchema }, ({ params, body }, actor, tx) => moveCase(actor, tx, params.caseId, body)),
+    cellar(
+      { params: caseParams, body: moveSchema },
+      idempotent(({ params, body }, actor, tx) => moveCase(actor, tx, params.caseId, body)),
+    ),
   );
   return router;
 }

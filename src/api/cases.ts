@@ -1,6 +1,13 @@
-import { bottleCaseSchema, caseDetailSchema, type BottleCase, type CaseDetail, type DrawDownRequest } from '@shared/schemas/bottles';
+import {
+  bottleCaseSchema,
+  caseDetailSchema,
+  DEPARTURE_LABELS,
+  type BottleCase,
+  type CaseDetail,
+  type DrawDownRequest,
+} from '@shared/schemas/bottles';
 import type { MoveRequest } from '@shared/schemas/places';
-import { request } from './http';
+import { request, requestOrQueue } from './http';
 import { cellarPath } from './paths';
 
 export { caseDetailSchema, type CaseDetail };
@@ -13,8 +20,17 @@ export const fetchCase = (cellarId: string, caseId: string): Promise<CaseDetail>
  * @param expectedVersion - the case version shown; a different one answers 409
  */
 export const drawDown = (cellarId: string, caseId: string, departure: DrawDownRequest): Promise<BottleCase> =>
-  request('POST', cellarPath(cellarId, 'cases', caseId, 'departures'), bottleCaseSchema, departure);
+  requestOrQueue('POST', cellarPath(cellarId, 'cases', caseId, 'departures'), bottleCaseSchema, departure, {
+    kind: 'departure',
+    label: `Bottles out: ${departure.count} (${DEPARTURE_LABELS[departure.reason].toLowerCase()})`,
+    cellarId,
+    stampField: 'at',
+  });
 
 /** Puts the case into a free slot, or takes it off its shelf with `to: null`. */
 export const moveCase = (cellarId: string, caseId: string, move: MoveRequest): Promise<BottleCase> =>
-  request('PUT', cellarPath(cellarId, 'cases', caseId, 'place'), bottleCaseSchema, move);
+  requestOrQueue('PUT', cellarPath(cellarId, 'cases', caseId, 'place'), bottleCaseSchema, move, {
+    kind: 'move',
+    label: move.to ? 'Case moved to a slot' : 'Case taken off its shelf',
+    cellarId,
+  });

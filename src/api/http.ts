@@ -1,5 +1,8 @@
 import type { ZodType } from 'zod';
 import { apiErrorSchema } from '@shared/schemas/common';
+import type { NewQueuedWrite } from '@/offline/outbox';
+import type { QueuedWriteKind } from '@/offline/queued-write';
+import { newIdempotencyKey } from '@/offline/idempotency-key';
 
 /** An error answer from the API, with the message the server chose for people. */
 export class ApiError extends Error {
@@ -27,6 +30,18 @@ export function setUnauthorizedHandler(handler: () => void): void {
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
+/** How the API layer reaches the offline queue (src/offline/, wired in main.ts). */
+export interface OfflineHooks {
+  /** Keeps a write on the phone, to be sent when the connection returns. */
+  queue(write: Omit<NewQueuedWrite, 'userId'>): Promise<void>;
+  /** Every request tells whether it reached the server (for the offline banner). */
+  reached(ok: boolean): void;
+}
+let offlineHooks: OfflineHooks | undefined;
+export function setOfflineHooks(hooks: OfflineHooks | undefined): void {
+  offlineHooks = hooks;
+}
+
 /** The error thrown when the request never reached the server. */
 export const offlineError = (): ApiError => new ApiError(0, 'offline', 'Cannot reach Cellarwright. Check the connection and try again.');
 
@@ -46,18 +61,23 @@ export function errorFromAnswer(status: number, raw: unknown): ApiError {
  * Calls the API and checks the answer against the shared zod schema.
  * @param schema - the response schema; omit for answers without a body (204)
  */
-export async function request<T>(method: Method, url: string, schema?: ZodType<T>, body?: unknown): Promise<T> {
+export async function request<T>(method: Method, url: string, schema?: ZodType<T>, body?: unknown, headers: Record<string, string> = {}): Promise<T> {
   let res: Response;
   try {
     res = await fetch(url, {
       method,
       credentials: 'same-origin',
-      headers: body === undefined ? { accept: 'application/json' } : { accept: 'application/json', 'content-type': 'application/json' },
+      headers:
+        body === undefined
+          ? { accept: 'application/json', ...headers }
+          : { accept: 'application/json', 'content-type': 'application/json', ...headers },
       body: body === undefined ? undefined : JSON.stringify(body),
     });
   } catch {
+    offlineHooks?.reached(false);
     throw offlineError();
   }
+  offlineHooks?.reached(true);
   if (!res.ok) {
     const raw = await res.json().catch(() => ({}));
     if (res.status === 401 && !url.endsWith('/auth/sign-in')) onUnauthorized?.();
@@ -65,4 +85,56 @@ export async function request<T>(method: Method, url: string, schema?: ZodType<T
   }
   if (!schema || res.status === 204) return undefined as T;
   return schema.parse(await res.json());
+}
+
+/** Thrown when a write was kept on the phone instead of sent: not a failure, the dialog says so and closes. */
+export class QueuedOfflineError extends ApiError {
+  constructor() {
+    super(0, 'queued', 'Saved on this phone — will send when back online.');
+  }
+}
+
+/** What a write that may wait for the connection is, for the queue and the person. */
+export interface QueueableWrite {
+  kind: QueuedWriteKind;
+  /** In people's words: "Reading 1.012". */
+  label: string;
+  cellarId: string;
+  /**
+   * The field that says when it happened: a queued write fills it with the moment it was made,
+   * so it keeps its own time, not the time it is sent.
+   */
+  stampField?: string;
+}
+
+/**
+ * A write that survives a missing connection: sent at once with an Idempotency-Key when there
+ * is a connection; kept on the phone (QueuedOfflineError) when there is none or the request
+ * never reached the server, and sent later with the same key, so it is recorded once.
+ */
+export async function requestOrQueue<T>(method: 'POST' | 'PUT', url: string, schema: ZodType<T>, body: object, write: QueueableWrite): Promise<T> {
+  const key = newIdempotencyKey();
+  const madeAt = new Date();
+  const keep = async (): Promise<never> => {
+    const stamped: Record<string, unknown> = { ...body };
+    if (write.stampField && stamped[write.stampField] === undefined) stamped[write.stampField] = madeAt.toISOString();
+    await offlineHooks!.queue({
+      id: key,
+      kind: write.kind,
+      label: write.label,
+      method,
+      url,
+      body: stamped,
+      madeAt: madeAt.toISOString(),
+      cellarId: write.cellarId,
+    });
+    throw new QueuedOfflineError();
+  };
+  if (offlineHooks && navigator.onLine === false) return keep();
+  try {
+    return await request(method, url, schema, body, { 'Idempotency-Key': key });
+  } catch (err) {
+    if (offlineHooks && err instanceof ApiError && err.code === 'offline') return keep();
+    throw err;
+  }
 }

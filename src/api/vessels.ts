@@ -10,7 +10,7 @@ import {
 } from '@shared/schemas/vessels';
 import type { MoveRequest } from '@shared/schemas/places';
 import type { z } from 'zod';
-import { request } from './http';
+import { request, requestOrQueue } from './http';
 import { cellarPath, withQuery } from './paths';
 
 const vesselPath = (cellarId: string, vesselId: string, ...rest: string[]) => cellarPath(cellarId, 'vessels', vesselId, ...rest);
@@ -44,7 +44,13 @@ export const updateVessel = (cellarId: string, vesselId: string, changes: Vessel
  * @param expectedVersion - the version shown; a different one answers 409 saying what changed
  */
 export const setCleaning = (cellarId: string, vesselId: string, state: CleaningState, expectedVersion?: number): Promise<Vessel> =>
-  request('POST', vesselPath(cellarId, vesselId, 'cleaning'), vesselSchema, { state, expectedVersion });
+  requestOrQueue(
+    'POST',
+    vesselPath(cellarId, vesselId, 'cleaning'),
+    vesselSchema,
+    { state, expectedVersion },
+    { kind: 'cleaning', label: `Marked ${state}`, cellarId },
+  );
 
 /** Retires a vessel (or brings it back into use with `retired: false`). */
 export const setRetired = (cellarId: string, vesselId: string, retired: boolean, expectedVersion?: number): Promise<Vessel> =>
@@ -52,7 +58,11 @@ export const setRetired = (cellarId: string, vesselId: string, retired: boolean,
 
 /** Puts the vessel into a free slot, or takes it off its shelf with `to: null`. */
 export const moveVessel = (cellarId: string, vesselId: string, move: MoveRequest): Promise<Vessel> =>
-  request('PUT', vesselPath(cellarId, vesselId, 'place'), vesselSchema, move);
+  requestOrQueue('PUT', vesselPath(cellarId, vesselId, 'place'), vesselSchema, move, {
+    kind: 'move',
+    label: move.to ? 'Vessel moved to a slot' : 'Vessel taken off its shelf',
+    cellarId,
+  });
 
 /** Deletes an empty vessel (Keeper only). */
 export const deleteVessel = (cellarId: string, vesselId: string): Promise<void> =>

@@ -4,6 +4,7 @@ import type { SessionUser } from '@shared/schemas/auth';
 import { ROLES, roleAtLeast, type Role } from '@shared/roles';
 import * as authApi from '@/api/auth';
 import { ApiError } from '@/api/http';
+import { forgetRememberedSession, rememberedSession, rememberSession } from '@/offline/remembered-session';
 
 const LAST_CELLAR_KEY = 'cellarwright.lastCellar';
 
@@ -23,7 +24,13 @@ export const useSessionStore = defineStore('session', () => {
   async function load(): Promise<void> {
     try {
       user.value = await authApi.fetchMe();
+      rememberSession(user.value);
     } catch (err) {
+      // Without signal, the person last signed in on this phone (src/offline/remembered-session.ts).
+      if (err instanceof ApiError && err.code === 'offline' && rememberedSession()) {
+        user.value = rememberedSession();
+        return;
+      }
       if (!(err instanceof ApiError) || err.status !== 401) throw err;
       user.value = null;
     } finally {
@@ -33,6 +40,7 @@ export const useSessionStore = defineStore('session', () => {
 
   async function signIn(email: string, password: string): Promise<void> {
     user.value = await authApi.signIn({ email, password });
+    rememberSession(user.value);
     loaded.value = true;
   }
 
@@ -45,6 +53,7 @@ export const useSessionStore = defineStore('session', () => {
   function forget(): void {
     user.value = null;
     currentCellarId.value = null;
+    forgetRememberedSession();
   }
 
   function openCellar(cellarId: string): void {

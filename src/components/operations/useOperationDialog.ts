@@ -1,7 +1,8 @@
 import { nextTick, onBeforeMount, reactive, ref, watch } from 'vue';
 import { useQuasar } from 'quasar';
 import type { ZodType } from 'zod';
-import { ApiError } from '@/api/http';
+import { ApiError, QueuedOfflineError } from '@/api/http';
+import { useFormat } from '@/composables/useFormat';
 import { fieldKey, friendlyMessage, isSanitiseRefusal, plainMessage, valueAt } from './operation-errors';
 import { useCellarId } from './useDialogBatch';
 
@@ -46,6 +47,7 @@ export interface OperationDialogOptions<Request, Result> {
 }
 
 const WARNING_TIMEOUT_MS = 9000;
+const QUEUED_MESSAGE = 'Saved on this phone — will send when back online.';
 
 /** The result's own warnings, for results that carry them (OperationResult); none otherwise. */
 function warningsOf(result: unknown): string[] {
@@ -62,6 +64,8 @@ function warningsOf(result: unknown): string[] {
 export function useOperationDialog<Request, Result>(options: OperationDialogOptions<Request, Result>) {
   const $q = useQuasar();
   const cellarId = useCellarId();
+  // The server writes dates as YYYY-MM-DD; they are shown in the user's date style.
+  const { datesInMessage } = useFormat();
   const errors = reactive<FieldMessages>({});
   const busy = ref(false);
   const failure = ref<ApiError | null>(null);
@@ -99,17 +103,19 @@ export function useOperationDialog<Request, Result>(options: OperationDialogOpti
   }
 
   /** Runs the request; an ApiError becomes field messages plus `failure`. */
-  async function send(request: Request): Promise<{ ok: true; result: Result } | { ok: false }> {
+  async function send(request: Request): Promise<{ ok: true; result: Result } | { ok: false; queued?: true }> {
     busy.value = true;
     failure.value = null;
     try {
       return { ok: true, result: await options.send(cellarId.value, request) };
     } catch (err) {
+      // Kept on the phone to send later (src/offline/): nothing failed, nothing is recorded yet.
+      if (err instanceof QueuedOfflineError) return { ok: false, queued: true };
       const apiError =
         err instanceof ApiError ? err : new ApiError(0, 'unexpected', 'The answer from the server was not understood. Reload and try again.');
-      for (const issue of apiError.issues) errors[fieldKey(issue.path)] = plainMessage(issue.message);
+      for (const issue of apiError.issues) errors[fieldKey(issue.path)] = datesInMessage(plainMessage(issue.message));
       // The banner says it in plain words too, with the field's name rather than its path.
-      failure.value = new ApiError(apiError.status, apiError.code, plainMessage(apiError.message), apiError.issues, apiError.body);
+      failure.value = new ApiError(apiError.status, apiError.code, datesInMessage(plainMessage(apiError.message)), apiError.issues, apiError.body);
       markShownValues();
       return { ok: false };
     } finally {
@@ -149,6 +155,11 @@ export function useOperationDialog<Request, Result>(options: OperationDialogOpti
     const sent = await send(request);
     if (options.sanitiseOverride && isSanitiseRefusal(failure.value)) overriding.value = true;
     options.afterSend?.(failure.value);
+    if (!sent.ok && sent.queued) {
+      $q.notify({ type: 'info', icon: 'cloud_queue', message: QUEUED_MESSAGE });
+      options.emit('update:modelValue', false);
+      return;
+    }
     if (!sent.ok) return;
     const message = typeof options.success === 'function' ? options.success(sent.result, request) : options.success;
     notifyDone(message, options.warnings ? options.warnings(sent.result) : warningsOf(sent.result));

@@ -1,6 +1,6 @@
 import { ref } from 'vue';
 import { useQuasar } from 'quasar';
-import { ApiError } from '@/api/http';
+import { ApiError, QueuedOfflineError } from '@/api/http';
 
 /**
  * Runs one change to a vessel with a busy flag and a clear message. A 409 (someone changed the
@@ -21,6 +21,11 @@ export function useVesselCommand(reload: () => Promise<void> | void) {
       if (reloadAfter) await reload();
       return true;
     } catch (err) {
+      // Kept on the phone without signal: sent later, listed under "Waiting to send" — not a failure.
+      if (err instanceof QueuedOfflineError) {
+        $q.notify({ type: 'info', message: err.message });
+        return true;
+      }
       if (!(err instanceof ApiError)) throw err;
       $q.notify({ type: err.status === 409 ? 'warning' : 'negative', message: err.message, timeout: err.status === 409 ? 7000 : 4000 });
       if (err.status === 409) await reload();
