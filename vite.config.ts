@@ -2,6 +2,8 @@ import { fileURLToPath, URL } from 'node:url';
 import { defineConfig } from 'vite';
 import vue from '@vitejs/plugin-vue';
 import { quasar, transformAssetUrls } from '@quasar/vite-plugin';
+import { pwaPlugins } from './pwa/pwa-plugins';
+import { compression } from 'vite-plugin-compression2';
 
 const apiTarget = process.env.API_URL ?? 'http://127.0.0.1:8460';
 
@@ -12,6 +14,10 @@ export default defineConfig({
     vue({ template: { transformAssetUrls } }),
     // No Sass: Quasar's prebuilt CSS is imported in src/main.ts.
     quasar({ sassVariables: false }),
+    // Installable app: manifest, icons, service worker (pwa/).
+    ...pwaPlugins(),
+    // Brotli and gzip copies beside each file, served by server/http/client-assets.ts.
+    compression({ algorithms: ['brotliCompress', 'gzip'], threshold: 1024, exclude: [/\.(png|jpe?g|webp|woff2?)$/] }),
   ],
   resolve: {
     alias: {

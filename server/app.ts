@@ -1,5 +1,4 @@
 import 'reflect-metadata';
-import connectPgSimple from 'connect-pg-simple';
 import express, { type Router } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -22,11 +21,17 @@ import { cellarListRoutes, cellarSettingsRoutes } from './cellars/cellars.routes
 import { memberRoutes } from './cellars/members.routes';
 import { exportRoutes } from './exchange/exports.routes';
 import { importRoutes } from './exchange/imports.routes';
+import { deviceSeriesRoutes } from './devices/device-series.routes';
+import { deviceRoutes } from './devices/devices.routes';
+import { ingestRoutes, type DeviceReadingLimit } from './devices/ingest.routes';
 import { cellarAccess, type CellarAccessPolicy } from './http/cellar-access';
 import { crossSiteGuard } from './http/cross-site-guard';
+import { appShellFiles } from './http/app-shell-files';
+import { clientAssets, clientShell } from './http/client-assets';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { healthRoutes } from './http/health.routes';
 import { requireSignIn } from './http/require-sign-in';
+import { createSessionStore } from './http/session-store';
 import { labelRoutes } from './labels/labels.routes';
 import { mailOptionsWithDefaults, type MailAppOptions } from './mail/mail-app-options';
 import { mailSettingsRoutes } from './mail/mail-settings.routes';
@@ -57,6 +62,8 @@ export interface AppOptions {
   publicUrl?: string;
   /** Label code look-ups (/s, /api/scan, /api/cards) allowed per address per minute. */
   scanLookupsPerMinute?: number;
+  /** Readings one device may post per window (server/devices/ingest.routes.ts); benches raise it. */
+  deviceReadingLimit?: DeviceReadingLimit;
   /** Mail: the local mailbox for the Outgoing mail page, rate limits (server/mail/mail-app-options.ts). */
   mail?: MailAppOptions;
 }
@@ -76,6 +83,8 @@ export function createApp(options: AppOptions): express.Express {
         directives: {
           'img-src': ["'self'", 'data:', 'blob:'],
           'media-src': ["'self'", 'blob:'],
+          // The label preview shows the PDF it already fetched (src/components/labels/LabelPreview.vue).
+          'frame-src': ["'self'", 'blob:'],
           // Phones on the local network reach the app over plain HTTP; do not force HTTPS there.
           'upgrade-insecure-requests': options.cookieSecure ? [] : null,
         },
@@ -87,14 +96,14 @@ export function createApp(options: AppOptions): express.Express {
   app.use(crossSiteGuard(options.publicUrl));
   app.use(express.json({ limit: '1mb' }));
 
-  const PgStore = connectPgSimple(session);
   // TypeORM's own pg pool serves the session store too: one pool per app.
   const pool = (ds.driver as unknown as { master: Pool }).master;
   app.use(
     session({
       name: SESSION_COOKIE,
       secret: options.sessionSecret,
-      store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 60 * 15 }),
+      // Reads the user and their memberships with the session (server/http/session-store.ts).
+      store: createSessionStore(pool),
       resave: false,
       saveUninitialized: false,
       rolling: true,
@@ -123,6 +132,8 @@ export function createApp(options: AppOptions): express.Express {
   // The one-click unsubscribe link of reminder mails: signed, no sign-in.
   api.use('/mail', unsubscribeRoutes(ds, options.sessionSecret));
   // Everything about cellars needs a session; unknown /api paths still answer 404.
+  // Digital hydrometers post readings with a device token, no session (server/devices/).
+  api.use('/ingest', ingestRoutes(ds, options.deviceReadingLimit));
   api.use('/cellars', requireSignIn);
   api.use('/cellars', cellarListRoutes(ds));
 
@@ -143,6 +154,8 @@ export function createApp(options: AppOptions): express.Express {
   inCellar('batches/:batchId/bottlings', bottlingRoutes(ds), { write: 'hand' });
   inCellar('batches/:batchId/photos', photos.upload, { write: 'hand' });
   inCellar('batches/:batchId/plan', batchPlanRoutes(ds), { write: 'keeper' });
+  inCellar('batches/:batchId/device-readings', deviceSeriesRoutes(ds), { write: 'keeper' });
+  inCellar('devices', deviceRoutes(ds), { write: 'keeper' });
   inCellar('batches', batchRoutes(ds), { write: 'hand' });
   inCellar('plans', planRoutes(ds), { write: 'keeper' });
   inCellar('tasks', taskRoutes(ds), { write: 'hand' });
@@ -165,10 +178,12 @@ export function createApp(options: AppOptions): express.Express {
   app.use('/api', apiNotFound);
 
   if (options.clientDir && fs.existsSync(path.join(options.clientDir, 'index.html'))) {
-    const indexHtml = path.join(options.clientDir, 'index.html');
-    app.use(express.static(options.clientDir, { index: false, maxAge: '1h' }));
+    // The service worker and manifest first: never cached, so a new version is found.
+    app.use(appShellFiles(options.clientDir));
+    // Brotli or gzip made at build; hashed files cached for good, the rest revalidated (server/http/client-assets.ts).
+    app.use(clientAssets(options.clientDir));
     // Client-side routes: any other GET gets the app shell.
-    app.get('/{*splat}', (_req, res) => res.sendFile(indexHtml));
+    app.get('/{*splat}', clientShell(options.clientDir));
   }
 
   app.use(errorHandler);

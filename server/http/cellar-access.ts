@@ -1,9 +1,10 @@
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import type { DataSource } from 'typeorm';
 import { roleAtLeast, type Role } from '../../shared/roles';
 import { uuidSchema } from '../../shared/schemas/common';
 import { Membership } from '../entities/membership.entity';
 import { BadRequestError, ForbiddenError, NotFoundError, UnauthorizedError } from './errors';
+import { sessionPreload } from './session-store';
 
 export interface CellarAccessPolicy {
   /** Least role for POST, PUT and PATCH. DELETE always needs a Keeper. */
@@ -20,6 +21,17 @@ export function neededRole(method: string, policy: CellarAccessPolicy): Role {
 }
 
 /**
+ * The caller's role in a cellar: from the memberships the session read brought along (same
+ * request, one statement), else from the table.
+ */
+async function memberRole(ds: DataSource, req: Request, cellarId: string, userId: string): Promise<Role | undefined> {
+  const preload = sessionPreload(req);
+  if (preload?.user?.id === userId) return preload.memberships.get(cellarId);
+  const membership = await ds.getRepository(Membership).findOne({ where: { cellarId, userId } });
+  return membership?.role;
+}
+
+/**
  * The one gate for everything under /api/cellars/:cellarId. It loads the caller's membership
  * (a cellar they are not in answers 404, exactly like one that does not exist) and checks the
  * role the request method needs under the router's policy. Routers declare their policy once,
@@ -30,17 +42,15 @@ export function cellarAccess(ds: DataSource, policy: CellarAccessPolicy = { writ
     if (!req.user) throw new UnauthorizedError();
     const id = uuidSchema.safeParse(req.params.cellarId);
     if (!id.success) throw new BadRequestError('params.cellarId: must be an id (UUID)');
-    const membership = await ds.getRepository(Membership).findOne({
-      where: { cellarId: id.data, userId: req.user.id },
-    });
-    if (!membership) throw new NotFoundError('No such cellar.');
+    const role = await memberRole(ds, req, id.data, req.user.id);
+    if (!role) throw new NotFoundError('No such cellar.');
     const needed = neededRole(req.method, policy);
-    if (!roleAtLeast(membership.role, needed)) {
+    if (!roleAtLeast(role, needed)) {
       throw new ForbiddenError(
         needed === 'keeper' ? 'Only a Keeper of this cellar can do that.' : 'Guests can look but not change anything in this cellar.',
       );
     }
-    req.cellar = { id: membership.cellarId, role: membership.role };
+    req.cellar = { id: id.data, role };
     next();
   };
   // The policy stays readable on the gate, for the route sweep that walks the app.

@@ -18,25 +18,26 @@ interface CodeTarget {
   cellarId: string;
   lotId: string | null;
   publicCards: boolean;
+  /** Whether the visitor is a member of the code's cellar (false when signed out). */
+  member: boolean;
 }
 
-/** The vessel, case or lot a (normalised) code belongs to, whatever the cellar; null if none. */
-async function findCode(tx: EntityManager, code: string): Promise<CodeTarget | null> {
+/**
+ * The vessel, case or lot a (normalised) code belongs to, whatever the cellar, and whether the
+ * visitor belongs to that cellar — one statement; null if no such code.
+ */
+async function findCode(tx: EntityManager, code: string, userId: string | undefined): Promise<CodeTarget | null> {
   const [row] = await tx.query(
-    `SELECT t.kind, t.id, t.cellar_id AS "cellarId", t.lot_id AS "lotId", c.public_bottle_cards AS "publicCards"
+    `SELECT t.kind, t.id, t.cellar_id AS "cellarId", t.lot_id AS "lotId", c.public_bottle_cards AS "publicCards",
+            EXISTS (SELECT 1 FROM memberships m WHERE m.cellar_id = t.cellar_id AND m.user_id = $2) AS member
        FROM (SELECT 'vessel' AS kind, id, cellar_id, NULL::uuid AS lot_id FROM vessels WHERE code = $1
              UNION ALL SELECT 'lot', id, cellar_id, id FROM bottle_lots WHERE code = $1
              UNION ALL SELECT 'case', id, cellar_id, lot_id FROM bottle_cases WHERE code = $1) t
        JOIN cellars c ON c.id = t.cellar_id
       LIMIT 1`,
-    [code],
+    [code, userId ?? null],
   );
   return row ?? null;
-}
-
-async function isMember(tx: EntityManager, userId: string, cellarId: string): Promise<boolean> {
-  const [row] = await tx.query(`SELECT 1 FROM memberships WHERE user_id = $1 AND cellar_id = $2`, [userId, cellarId]);
-  return Boolean(row);
 }
 
 /** The client route that shows a thing: a vessel's page, or the Bottles page on its lot. */
@@ -54,10 +55,10 @@ export async function scanDestination(tx: EntityManager, userId: string | undefi
   const parsed = labelCodeSchema.safeParse(rawCode);
   if (!parsed.success) return userId ? NO_SUCH_LABEL : `/sign-in?next=/s/${encodeURIComponent(rawCode.slice(0, 16))}`;
   const code = parsed.data;
-  const target = await findCode(tx, code);
+  const target = await findCode(tx, code, userId);
   const card = target !== null && target.kind !== 'vessel' && target.publicCards;
   if (!userId) return card ? `/card/${code}` : `/sign-in?next=/s/${code}`;
-  if (target && (await isMember(tx, userId, target.cellarId))) return clientPath(target);
+  if (target?.member) return clientPath(target);
   return card ? `/card/${code}` : NO_SUCH_LABEL;
 }
 
@@ -66,8 +67,8 @@ export async function scanDestination(tx: EntityManager, userId: string | undefi
  * @throws NotFoundError for unknown codes and codes of other cellars alike
  */
 export async function resolveCode(tx: EntityManager, userId: string, code: string): Promise<ScanResult> {
-  const target = await findCode(tx, code);
-  if (!target || !(await isMember(tx, userId, target.cellarId))) throw new NotFoundError('No such label here.');
+  const target = await findCode(tx, code, userId);
+  if (!target?.member) throw new NotFoundError('No such label here.');
   return { kind: target.kind, id: target.id, cellarId: target.cellarId, url: clientPath(target) };
 }
 

@@ -2,6 +2,7 @@ import { Router, type Request, type RequestHandler, type Response } from 'expres
 import type { DataSource } from 'typeorm';
 import { scanCodeParamsSchema } from '../../shared/schemas/scan';
 import { inTransaction } from '../core/unit-of-work';
+import { NotFoundError } from '../http/errors';
 import { handle } from '../http/handle';
 import { requireSignIn } from '../http/require-sign-in';
 import { sharedLimit } from '../http/shared-rate-limit';
@@ -32,34 +33,46 @@ function tooMany(req: Request, res: Response): void {
 /**
  * Printed label URLs and code look-ups, mounted at the app root:
  * GET /s/:code (phones open it; redirects), GET /api/scan/:code (signed in),
- * GET /api/cards/:code (public bottle cards). Look-ups are rate-limited per address.
+ * GET /api/cards/:code (public bottle cards). Look-ups that could be guesses are rate-limited per address.
  */
 export function scanRoutes(ds: DataSource, options: ScanRouteOptions = {}): Router {
   const router = Router();
   // Counted in PostgreSQL, so several instances share one count per address.
   const lookups = sharedLimit(ds, { name: 'scan-lookups', points: options.lookupsPerMinute ?? 60, windowSeconds: 60 });
-  const limiter: RequestHandler = async (req, res, next) => {
+  /** Counts one look-up of this address; false (and the 429 already sent) when it is over the limit. */
+  const counted = async (req: Request, res: Response): Promise<boolean> => {
     const wait = await lookups.take(req.ip ?? 'unknown');
-    if (wait > 0) {
-      res.set('Retry-After', String(wait));
-      tooMany(req, res);
-      return;
-    }
-    next();
+    if (wait === 0) return true;
+    res.set('Retry-After', String(wait));
+    tooMany(req, res);
+    return false;
   };
+  const limiter: RequestHandler = async (req, res, next) => {
+    if (await counted(req, res)) next();
+  };
+  // The limit is against guessing codes: a member opening their own cellar's label is not
+  // counted (no write on every scan), every other look-up is — unknown codes, other cellars'
+  // codes, and everything a signed-out visitor opens.
   router.get(
     '/s/:code',
-    limiter,
+    (req, res, next) => (req.user ? next() : limiter(req, res, next)),
     handle({}, async (_input, req, res) => {
       const target = await inTransaction(ds, 'read', (tx) => scanDestination(tx, req.user?.id, String(req.params.code ?? '')));
+      if (req.user && !target.startsWith('/c/') && !(await counted(req, res))) return;
       res.set('Cache-Control', 'no-store').redirect(302, target);
     }),
   );
   router.get(
     '/api/scan/:code',
-    limiter,
     requireSignIn,
-    handle({ params: scanCodeParamsSchema }, ({ params }, req) => inTransaction(ds, 'read', (tx) => resolveCode(tx, req.user!.id, params.code))),
+    handle({ params: scanCodeParamsSchema }, async ({ params }, req, res) => {
+      try {
+        return await inTransaction(ds, 'read', (tx) => resolveCode(tx, req.user!.id, params.code));
+      } catch (err) {
+        if (err instanceof NotFoundError && !(await counted(req, res))) return undefined;
+        throw err;
+      }
+    }),
   );
   router.get(
     '/api/cards/:code',

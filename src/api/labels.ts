@@ -42,10 +42,10 @@ export function labelPdfUrl(cellarId: string, req: LabelPrintRequest): string {
 }
 
 /**
- * Asks for the PDF once to learn whether it can be made; resolves with the number of
- * labels, rejects with the server's message (unknown template, nothing to print…).
+ * Fetches the PDF once: the preview shows this copy (no second rendering for the frame);
+ * rejects with the server's message (unknown template, nothing to print…).
  */
-export async function checkLabelPdf(url: string): Promise<number> {
+export async function fetchLabelPdf(url: string): Promise<{ pdf: Blob; count: number }> {
   let res: Response;
   try {
     res = await fetch(url, { credentials: 'same-origin' });
@@ -56,8 +56,7 @@ export async function checkLabelPdf(url: string): Promise<number> {
     const body = await res.json().catch(() => ({}));
     throw new ApiError(res.status, body.error ?? 'http_error', body.message ?? `The server answered ${res.status}.`);
   }
-  await res.arrayBuffer();
-  return Number(res.headers.get('x-label-count') ?? 0);
+  return { pdf: await res.blob(), count: Number(res.headers.get('x-label-count') ?? 0) };
 }
 
 /** Vessels, lots with their cases and batches to pick from, matching `q`. */
