@@ -4,6 +4,7 @@ import { newLabelCode } from '../labels/label-codes';
 import { photoEntry, tableEntry, type ArchivedPerson } from './archive-format';
 import type { OpenedArchive } from './archive-reader';
 import { ARCHIVE_TABLES, LABEL_CODE_TABLES, PHOTO_COLUMNS } from './archive-tables';
+import { rescoredJournalRow, scoresOutOfTwenty } from './former-scores';
 
 type Row = Record<string, unknown>;
 
@@ -83,7 +84,9 @@ export async function restoreArchive(
   await tx.query(`INSERT INTO memberships (cellar_id, user_id, role) VALUES ($1, $2, 'keeper')`, [cellarId, keeperId]);
   for (const table of ARCHIVE_TABLES) {
     const rows = (tables.get(table.name) ?? []).map((row) => {
-      const out = remap(row) as Row;
+      let out = remap(row) as Row;
+      // Tasting scores of archives written before our own scale move onto it, as the migration moved stored ones.
+      if (table.name === 'journal_entries' && scoresOutOfTwenty(archive.manifest.schema)) out = rescoredJournalRow(out);
       if ((LABEL_CODE_TABLES as readonly string[]).includes(table.name)) out.code = codes.get(String(row.code)) ?? row.code;
       if (table.name === 'photos') {
         for (const column of PHOTO_COLUMNS) out[column] = `\\x${archive.entries.get(photoEntry(String(row.id), column))!.toString('hex')}`;

@@ -1,3 +1,6 @@
+import { DEVICE_ARCHIVE_TABLE } from '../devices/device-archive';
+import { JOURNAL_ARCHIVE_TABLE } from '../journal/journal-archive';
+
 /**
  * What a whole-cellar archive holds: every table of the cellar's record, in an order where
  * each row's references come before it (so a restore inserts them in this order). Members,
@@ -22,8 +25,7 @@ export const ARCHIVE_TABLES: ArchiveTable[] = [
     rows: `SELECT p.* FROM batch_parents p JOIN batches b ON b.id = p.child_id WHERE b.cellar_id = $1 ORDER BY p.child_id, p.parent_id`,
   },
   { name: 'vessels', rows: ofCellar('vessels') },
-  // An amendment refers to the entry it corrects: originals first.
-  { name: 'journal_entries', rows: ofCellar('journal_entries', '(amends_entry_id IS NOT NULL), recorded_at, id') },
+  JOURNAL_ARCHIVE_TABLE,
   { name: 'photos', rows: ofCellar('photos') },
   { name: 'bottle_lots', rows: ofCellar('bottle_lots') },
   { name: 'bottle_cases', rows: ofCellar('bottle_cases') },
@@ -33,6 +35,9 @@ export const ARCHIVE_TABLES: ArchiveTable[] = [
   { name: 'task_states', rows: ofCellar('task_states', 'task_key') },
   { name: 'audit_events', rows: ofCellar('audit_events') },
   { name: 'import_row_keys', rows: ofCellar('import_row_keys', 'target, row_key') },
+  // Digital hydrometers without their token (it is the installation's key, not the cellar's record).
+  DEVICE_ARCHIVE_TABLE,
+  { name: 'device_readings', rows: ofCellar('device_readings', 'device_id, taken_at') },
 ];
 
 /** Columns whose values are label codes printed on labels; a colliding one is replaced and listed. */

@@ -34,6 +34,8 @@ export function entrySummary(payload: JournalPayload): string {
       return `Split off ${payload.childName}`;
     case 'blended':
       return `Blended into ${payload.childName}`;
+    case 'emptied':
+      return `Emptied ${payload.vesselName}, ${payload.volumeL} L poured out (${payload.reason}${payload.note ? `: ${clip(payload.note)}` : ''})`;
     case 'amendment':
       return `Corrected ${Object.keys(payload.changes).join(', ')}: ${clip(payload.reason)}`;
   }

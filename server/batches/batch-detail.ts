@@ -11,6 +11,7 @@ import { batchJournal, type JournalRow } from '../journal/journal-queries';
 import { placesOf } from '../places/placement';
 import { vesselsHolding } from './batch-lookup';
 import { findSummary } from './batch-summaries';
+import { inheritedReadings, ownSince } from './split-lineage';
 
 /** Shown as the author of entries whose account was deleted. */
 const FORMER_MEMBER = { id: '00000000-0000-0000-0000-000000000000', name: 'Former member' };
@@ -115,10 +116,12 @@ export async function batchDetail(tx: EntityManager, cellarId: string, batchId: 
     targetSweetness: batch.targetSweetness as BatchDetail['targetSweetness'],
     notes: batch.notes,
     vessels: await vesselsOf(tx, batchId),
-    readings: readingsView(oldestFirst),
+    // A split's figures follow the must it came from: its parent's readings up to the split first.
+    readings: [...(await inheritedReadings(tx, batchId)), ...readingsView(oldestFirst)],
     journal: journalOf(oldestFirst),
     ...(await familyOf(tx, batchId)),
     additionsIn: additionsInOf(oldestFirst, amended),
+    ownSince: (await ownSince(tx, batchId))?.toISOString() ?? null,
   };
 }
 

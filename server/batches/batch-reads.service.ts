@@ -7,6 +7,7 @@ import { requireRole, type Actor } from '../core/actor';
 import { localDate } from '../core/local-date';
 import { batchDetail } from './batch-detail';
 import { needsRackingSql, SqlParams, summaryColumns, summaryFrom, toSummary, type SummaryRow } from './batch-summaries';
+import { whereaboutsOf } from './whereabouts';
 
 type ListQuery = z.output<typeof batchListQuerySchema>;
 type BatchPage = z.output<typeof batchPageSchema>;
@@ -51,7 +52,11 @@ export async function listBatches(actor: Actor, tx: EntityManager, query: ListQu
     `SELECT ${summaryColumns(needs)} ${from} WHERE ${condition} ORDER BY ${ORDER_BY[query.sort]} LIMIT ${limit} OFFSET ${offset}`,
     params.values,
   );
-  return { items: rows.map(toSummary), total, page: query.page, pageSize: query.pageSize };
+  const whereabouts = await whereaboutsOf(
+    tx,
+    rows.map((r) => r.id),
+  );
+  return { items: rows.map((r) => ({ ...toSummary(r), whereabouts: whereabouts.get(r.id) ?? [] })), total, page: query.page, pageSize: query.pageSize };
 }
 
 /** The Batch page's data, read in one consistent snapshot. */

@@ -9,6 +9,7 @@ import { batchOperationRoutes } from './batch-operations.routes';
 import { getBatch, listBatches } from './batch-reads.service';
 import { blendBatches } from './blend.service';
 import { deleteBatch } from './delete.service';
+import { batchFamily } from './family.service';
 import { startBatch } from './start.service';
 import { updateBatch } from './update.service';
 
@@ -45,6 +46,10 @@ export function batchRoutes(ds: DataSource): Router {
   router.get(
     '/:batchId',
     cellar({ params: batchParams }, ({ params }, actor, tx) => getBatch(actor, tx, params.batchId)),
+  );
+  router.get(
+    '/:batchId/family',
+    cellar({ params: batchParams }, ({ params }, actor, tx) => batchFamily(actor, tx, params.batchId)),
   );
   router.patch(
     '/:batchId',

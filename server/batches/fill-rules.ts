@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { CAUTION_GLASS, headspace } from '../../shared/calc';
+import { headspaceIsRisk } from '../../shared/domain/headspace-rule';
 import { vesselState } from '../../shared/domain/vessel-state';
 import { calc } from '../core/calc-guard';
 import { litres } from '../core/litres';
@@ -82,11 +83,14 @@ function percentText(percent: number, limit: number): string {
 }
 
 /**
- * "Fermenter 2 has 12 % headspace — …" for each filled vessel above the cellar's limit.
+ * "Fermenter 2 has 12 % headspace — …" for each filled vessel above the cellar's limit; nothing
+ * while the batch is in primary, where room is needed and the ferment's gas protects it.
  * @param filled - vessels with their new volume
+ * @param stage - the batch's stage after the operation (unknown: warned about)
  */
-export function headspaceWarnings(filled: { vessel: Vessel; volumeL: number }[], cellar: Cellar): string[] {
+export function headspaceWarnings(filled: { vessel: Vessel; volumeL: number }[], cellar: Cellar, stage?: string): string[] {
   const warnings: string[] = [];
+  if (!headspaceIsRisk(stage)) return warnings;
   for (const { vessel, volumeL } of filled) {
     const space = calc(() => headspace({ capacityL: vessel.capacityL, volumeL }));
     if (space.percent > cellar.headspaceWarnPercent) {

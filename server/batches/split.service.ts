@@ -14,14 +14,16 @@ import { appendEntry } from '../journal/journal';
 import { lockVessels } from '../vessels/vessel-lock';
 import { operationResult } from './batch-detail';
 import { findBatch, lockBatch, occurredAt, requireInVessels } from './batch-lookup';
+import { readingCachesForSplit } from './split-lineage';
 import { requireHolds, vesselVolume } from './fill-rules';
 
 export type SplitRequest = Omit<z.output<typeof splitRequestSchema>, 'kind'> & { kind: BatchKind };
 
 /**
  * Splits some of a batch's vessels off into a new batch (say, half a melomel gets oak): the
- * vessels keep their contents but now hold the child, which copies the recipe, OG and start
- * date and records its parent. A 'split' entry goes on the parent, 'started' on the child.
+ * vessels keep their contents but now hold the child, which copies the recipe, OG, start
+ * date and latest reading (a split's age and figures follow the must it came from) and records
+ * its parent. A 'split' entry goes on the parent, 'started' on the child.
  * @returns the child batch
  */
 export async function splitBatch(actor: Actor, tx: EntityManager, batchId: string, request: SplitRequest): Promise<OperationResult> {
@@ -54,6 +56,8 @@ export async function splitBatch(actor: Actor, tx: EntityManager, batchId: strin
       targetSweetness: parent.targetSweetness,
       notes: '',
       createdBy: actor.userId,
+      // The same must: its age and figures follow the parent's (server/batches/split-lineage.ts).
+      ...(await readingCachesForSplit(tx, parent.id, at)),
     }),
   );
   await tx.getRepository(BatchParent).insert({ childId: child.id, parentId: parent.id, volumeL });

@@ -14,7 +14,9 @@ type TopUpRequest = z.output<typeof topUpRequestSchema>;
 
 /**
  * Tops up a vessel holding the batch (to cut headspace); the vessel's volume grows and must
- * still fit. Warns when the headspace is still above the cellar's limit.
+ * still fit. The liquid (what, its gravity and strength if known) is recorded with the batch's
+ * litres before it, so gravity and strength follow by the mixing rule (shared/domain/top-up-figures.ts).
+ * Warns when the headspace is still above the cellar's limit (not in primary).
  */
 export function topUp(actor: Actor, tx: EntityManager, batchId: string, request: TopUpRequest): Promise<OperationResult> {
   requireRole(actor, 'hand');
@@ -30,15 +32,27 @@ export function topUp(actor: Actor, tx: EntityManager, batchId: string, request:
         { vesselId: vessel.id, currentVersion: vessel.version },
       );
     }
+    // The batch's litres before the top-up: the mixing rule weighs the liquid added against them.
+    const [{ litres: batchVolumeBeforeL }]: { litres: number }[] = await tx.query(
+      `SELECT COALESCE(SUM(volume_l), 0)::float8 AS litres FROM vessels WHERE batch_id = $1`,
+      [batch.id],
+    );
     vessel.volumeL = after;
     await tx.getRepository(Vessel).save(vessel);
     const entry = await appendEntry(
       tx,
       actor,
       batch.id,
-      { kind: 'topped-up', vesselId: vessel.id, vesselName: vessel.name, volumeL: request.volumeL, with: request.with },
+      {
+        kind: 'topped-up',
+        vesselId: vessel.id,
+        vesselName: vessel.name,
+        volumeL: request.volumeL,
+        with: request.with,
+        ...(request.liquid ? { liquid: request.liquid, batchVolumeBeforeL } : {}),
+      },
       { occurredAt: at(request.at) },
     );
-    return { entryId: entry.id, warnings: headspaceWarnings([{ vessel, volumeL: after }], cellar) };
+    return { entryId: entry.id, warnings: headspaceWarnings([{ vessel, volumeL: after }], cellar, batch.stage) };
   });
 }

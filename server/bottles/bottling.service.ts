@@ -21,6 +21,7 @@ import { BottleLotRow } from '../entities/bottle-lot.entity';
 import { Vessel } from '../entities/vessel.entity';
 import { AppError, BadRequestError, NotFoundError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
+import { inheritedReadings } from '../batches/split-lineage';
 import { batchReadings } from '../journal/journal-queries';
 import { newLabelCode } from '../labels/label-codes';
 import { lockVessels, vesselChangedError } from '../vessels/vessel-lock';
@@ -122,7 +123,8 @@ export async function bottleBatch(actor: Actor, tx: EntityManager, batchId: stri
     );
   }
 
-  const readings = (await batchReadings(tx, batch.id)).map((r) => ({ at: new Date(r.at), sg: r.correctedSg }));
+  // A split's state follows the must it came from: its parent's readings up to the split count too.
+  const readings = [...(await inheritedReadings(tx, batch.id)), ...(await batchReadings(tx, batch.id))].map((r) => ({ at: new Date(r.at), sg: r.correctedSg }));
   const state = judgeFermentation(batch, readings, now);
   if (state !== 'finished' && !request.confirmNotFinished) throw confirmationRequired(state);
 
@@ -187,8 +189,9 @@ export async function bottleBatch(actor: Actor, tx: EntityManager, batchId: stri
     );
   }
   if (lot.abvEstimate === null) warnings.push('No original gravity or reading is recorded, so the lot has no ABV estimate.');
+  // Bottle pressure is a caution only while the fermentation does not read finished.
   const cautions = [
-    CAUTION_BOTTLE_PRESSURE,
+    ...(state !== 'finished' ? [CAUTION_BOTTLE_PRESSURE] : []),
     ...(request.sulfiteAdded ? [CAUTION_SULFITES] : []),
     ...(lot.abvEstimate !== null ? [CAUTION_ESTIMATE] : []),
   ];

@@ -23,6 +23,10 @@ import { AddSharedRateLimits1796170500000 } from './migrations/1796170500000-Add
 import { AddReadableDate1796170510000 } from './migrations/1796170510000-AddReadableDate';
 import { AddPhotoDisplayCopy1796170520000 } from './migrations/1796170520000-AddPhotoDisplayCopy';
 import { CreateAuditAndImportKeys1796170600000 } from './migrations/1796170600000-CreateAuditAndImportKeys';
+import { UniqueVesselNames1796170700000 } from './migrations/1796170700000-UniqueVesselNames';
+import { CreateDevices1796170800000 } from './migrations/1796170800000-CreateDevices';
+import { CreateIdempotencyKeys1796170900000 } from './migrations/1796170900000-CreateIdempotencyKeys';
+import { TastingScoresOnOwnScale1796171100000 } from './migrations/1796171100000-TastingScoresOnOwnScale';
 
 /** Every entity, listed by hand (glob paths do not work under Vitest). */
 export const entities = [
@@ -55,4 +59,8 @@ export const migrations = [
   AddReadableDate1796170510000,
   AddPhotoDisplayCopy1796170520000,
   CreateAuditAndImportKeys1796170600000,
+  UniqueVesselNames1796170700000,
+  CreateDevices1796170800000,
+  CreateIdempotencyKeys1796170900000,
+  TastingScoresOnOwnScale1796171100000,
 ];

@@ -3,6 +3,7 @@ import { advanceStage, deriveStage } from '../../shared/domain/stage';
 import type { Stage } from '../../shared/schemas/batches';
 import type { JournalPayload } from '../../shared/schemas/journal';
 import type { Actor } from '../core/actor';
+import { latestDeviceReading } from './device-readings';
 import { latestReading } from './journal-queries';
 import { inheritedHistory } from './lineage';
 
@@ -139,6 +140,12 @@ async function advanceCaches(
     const latest = await latestReading(tx, batchId);
     next.lastReadingSg = latest?.correctedSg ?? null;
     next.lastReadingAt = latest ? new Date(latest.at) : null;
+    // A hydrometer's reading may be later still (device readings are not entries; another index look-up).
+    const device = await latestDeviceReading(tx, batchId);
+    if (device && (!next.lastReadingAt || device.at >= next.lastReadingAt)) {
+      next.lastReadingSg = Math.round(device.sg * 1000) / 1000;
+      next.lastReadingAt = device.at;
+    }
   }
   return next;
 }

@@ -44,10 +44,17 @@ export interface VesselLabelRow {
   og: number | null;
   lastSg: number | null;
   unitSystem: UnitSystem;
+  /** The cellar's local date of printing, YYYY-MM-DD (today in UTC when not given). */
+  printedOn?: string;
 }
 
-/** A vessel's label: its name and code, and the batch it holds (or that it is empty). */
+/**
+ * A vessel's label carries what does not change — its name, kind and capacity, and its code.
+ * What it holds changes with every racking, so contents are printed only with the day the label
+ * was printed ("Contents on 3 Dec 2026"), and an empty vessel's label says nothing about them.
+ */
 export function vesselLabel(row: VesselLabelRow): LabelItem {
+  const printedOn = row.printedOn ?? new Date().toISOString().slice(0, 10);
   const holding = row.batchName !== null;
   return {
     kind: 'vessel',
@@ -56,11 +63,13 @@ export function vesselLabel(row: VesselLabelRow): LabelItem {
     texts: {
       name: row.name,
       code: row.code,
-      batch: holding ? row.batchName! : 'Empty',
-      kind: holding ? kindLabel(row.batchKind) : `${capitalised(row.vesselKind)} · ${formatVolume(row.capacityL, row.unitSystem)}`,
+      capacity: `${capitalised(row.vesselKind)} · ${formatVolume(row.capacityL, row.unitSystem)}`,
+      batch: holding ? row.batchName! : '',
+      kind: holding ? kindLabel(row.batchKind) : '',
       started: holding && row.startedOn ? `Started ${labelDate(row.startedOn)}` : '',
       og: holding ? `OG ${row.og === null ? '—' : row.og.toFixed(3)}` : '',
       abv: holding ? abvText(currentAbv(row.og, row.lastSg)) : '',
+      printed: holding ? `Contents on ${labelDate(printedOn)}` : '',
     },
   };
 }

@@ -1,6 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { LabelChoices, LabelSelection } from '../../shared/schemas/labels';
 import { requireRole, type Actor } from '../core/actor';
+import { localDate } from '../core/local-date';
 import { BadRequestError, NotFoundError } from '../http/errors';
 import { caseLabel, currentAbv, lotLabel, vesselLabel, type BottleLabelRow, type VesselLabelRow } from './content';
 import type { LabelItem } from './types';
@@ -8,7 +9,7 @@ import type { LabelItem } from './types';
 const VESSEL_ROWS = `
   SELECT v.id, v.code, v.name, v.kind AS "vesselKind", v.capacity_l::float8 AS "capacityL",
          b.name AS "batchName", b.kind AS "batchKind", b.started_on::text AS "startedOn",
-         b.og::float8 AS og, b.last_reading_sg::float8 AS "lastSg", c.unit_system AS "unitSystem"
+         b.og::float8 AS og, b.last_reading_sg::float8 AS "lastSg", c.unit_system AS "unitSystem", c.time_zone AS "timeZone"
     FROM vessels v JOIN cellars c ON c.id = v.cellar_id LEFT JOIN batches b ON b.id = v.batch_id
    WHERE v.cellar_id = $1`;
 
@@ -24,8 +25,9 @@ const withAbv = <R extends BottleQueryRow>(r: R) => ({ ...r, abv: r.lotAbv ?? cu
 
 async function vesselItems(tx: EntityManager, cellarId: string, ids: string[]): Promise<Map<string, LabelItem>> {
   if (!ids.length) return new Map();
-  const rows: VesselLabelRow[] = await tx.query(`${VESSEL_ROWS} AND v.id = ANY($2::uuid[])`, [cellarId, ids]);
-  return new Map(rows.map((r) => [r.id, vesselLabel(r)]));
+  const rows: (VesselLabelRow & { timeZone: string })[] = await tx.query(`${VESSEL_ROWS} AND v.id = ANY($2::uuid[])`, [cellarId, ids]);
+  const now = new Date();
+  return new Map(rows.map((r) => [r.id, vesselLabel({ ...r, printedOn: localDate(now, r.timeZone) })]));
 }
 
 async function caseItems(tx: EntityManager, cellarId: string, ids: string[]): Promise<Map<string, LabelItem>> {

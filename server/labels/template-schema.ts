@@ -9,7 +9,7 @@ const SLACK_MM = 0.01;
 
 /** The text each kind of label can show; a template places any of them. */
 export const LABEL_FIELDS = {
-  vessel: ['name', 'code', 'batch', 'kind', 'started', 'og', 'abv'],
+  vessel: ['name', 'code', 'capacity', 'batch', 'kind', 'started', 'og', 'abv', 'printed'],
   case: ['batch', 'code', 'kind', 'bottled', 'contents', 'abv', 'sulfites'],
   lot: ['batch', 'code', 'kind', 'bottled', 'contents', 'abv', 'sulfites'],
 } as const;

@@ -12,6 +12,7 @@ import { Rack } from '../entities/rack.entity';
 import { Shelf } from '../entities/shelf.entity';
 import { Vessel } from '../entities/vessel.entity';
 import { appendEntry } from '../journal/journal';
+import { readingCachesForSplit } from '../batches/split-lineage';
 import { newLabelCode } from '../labels/label-codes';
 import { DEMO_BATCHES, DEMO_RACKS, DEMO_VESSELS, type DemoBatch } from './demo-records';
 
@@ -172,8 +173,15 @@ export async function seedDemoRecords(tx: EntityManager, people: { keeper: Actor
   await splitVanilla(daysAgo(90, 12));
   await log(
     'linden',
-    { kind: 'tasted', appearance: 'Pale gold, brilliant', aroma: 'Lime blossom, beeswax', flavour: 'Dry, floral, a little hot still', score: 15 },
+    { kind: 'tasted', appearance: 'Pale gold, brilliant', aroma: 'Lime blossom, beeswax', flavour: 'Dry, floral, a little hot still', score: 6 },
     daysAgo(40),
+    people.keeper,
+  );
+  // Tasted against its vanilla split the next day, for the Compare view.
+  await log(
+    'vanilla',
+    { kind: 'tasted', appearance: 'Pale gold, brilliant', aroma: 'Vanilla over lime blossom', flavour: 'Rounder, softer finish', score: 7 },
+    daysAgo(39),
     people.keeper,
   );
 
@@ -285,7 +293,7 @@ export async function seedDemoRecords(tx: EntityManager, people: { keeper: Actor
     }
     await log(
       'cider',
-      { kind: 'tasted', appearance: 'Hazy amber', aroma: 'Baked apple, a little funk', flavour: 'Dry, firm tannin, long finish', score: 16 },
+      { kind: 'tasted', appearance: 'Hazy amber', aroma: 'Baked apple, a little funk', flavour: 'Dry, firm tannin, long finish', score: 7 },
       daysAgo(60),
       people.keeper,
     );
@@ -301,11 +309,13 @@ export async function seedDemoRecords(tx: EntityManager, people: { keeper: Actor
       yeastName: parent.yeastName,
       yeastToleranceAbv: parent.yeastToleranceAbv,
       plannedVolumeL: 4.5,
-      startedOn: at.toISOString().slice(0, 10),
+      // A split is the same must: it keeps its parent's start and latest reading (server/batches/split-lineage.ts).
+      startedOn: parent.startedOn,
       og: parent.og,
       targetSweetness: null,
       notes: 'A gallon of the linden metheglin on a split vanilla pod.',
       createdBy: people.keeper.userId,
+      ...(await readingCachesForSplit(tx, parent.id, at)),
     });
     batchKeys.set('vanilla', { row: child, def: { ...batchKeys.get('linden')!.def, key: 'vanilla' } });
     await tx.getRepository(BatchParent).save({ childId: child.id, parentId: parent.id, volumeL: 4.5 });

@@ -4,6 +4,7 @@ import { fermentationState, type GravityReading } from '../../shared/calc';
 import type { ReadingView } from '../../shared/domain/journal';
 import type { Today } from '../../shared/schemas/today';
 import { listBatches } from '../batches/batch-reads.service';
+import { inheritedReadings } from '../batches/split-lineage';
 import { loadCellar } from '../cellars/load-cellar';
 import { requireRole, type Actor } from '../core/actor';
 import { localDate } from '../core/local-date';
@@ -27,6 +28,7 @@ type FermentRow = {
   last_sg: string | null;
   last_at: Date | null;
   vessel_names: string[];
+  has_parents: boolean;
 };
 /** Readings as the fermentation state takes them: corrected gravity and when. */
 const gravityReadings = (readings: ReadingView[]): GravityReading[] => readings.map((r) => ({ at: new Date(r.at), sg: r.correctedSg }));
@@ -35,7 +37,8 @@ async function ferments(tx: EntityManager, cellarId: string, now: Date): Promise
   const rows: FermentRow[] = await tx.query(
     `SELECT b.id, b.name, b.kind, b.stage, b.started_on::text AS started_on, b.og, b.yeast_tolerance_abv AS tolerance,
             b.last_reading_sg AS last_sg, b.last_reading_at AS last_at,
-            array_agg(v.name ORDER BY v.name) AS vessel_names
+            array_agg(v.name ORDER BY v.name) AS vessel_names,
+            EXISTS (SELECT 1 FROM batch_parents bp WHERE bp.child_id = b.id) AS has_parents
        FROM batches b JOIN vessels v ON v.batch_id = b.id
       WHERE b.cellar_id = $1 AND b.stage IN ('primary', 'secondary')
       GROUP BY b.id ORDER BY b.started_on DESC, b.id LIMIT $2`,
@@ -47,6 +50,11 @@ async function ferments(tx: EntityManager, cellarId: string, now: Date): Promise
     rows.map((r) => r.id),
     READINGS_PER_BATCH,
   );
+  // A split's state follows the must it came from: its parent's readings up to the split come first.
+  for (const r of rows.filter((row) => row.has_parents)) {
+    const inherited = await inheritedReadings(tx, r.id);
+    if (inherited.length) readings.set(r.id, [...inherited, ...(readings.get(r.id) ?? [])].slice(-READINGS_PER_BATCH));
+  }
   return rows.map((r) => ({
     id: r.id,
     name: r.name,

@@ -19,6 +19,7 @@ export interface VesselRow {
   version: number;
   batchName: string | null;
   batchKind: string | null;
+  batchStage?: string | null;
   /** ISO date the batch it holds was started on. */
   batchStartedOn: string | null;
   sanitisedValidDays: number;
@@ -41,7 +42,7 @@ export function toVesselDto(row: VesselRow, place: SlotRef | null, now: Date): V
     capacityL: row.capacityL,
     state: vesselState(row, row.sanitisedValidDays, now),
     sanitisedAt: iso(row.sanitisedAt),
-    batch: row.batchId ? { id: row.batchId, name: row.batchName ?? '', kind: row.batchKind ?? '' } : null,
+    batch: row.batchId ? { id: row.batchId, name: row.batchName ?? '', kind: row.batchKind ?? '', ...(row.batchStage ? { stage: row.batchStage } : {}) } : null,
     volumeL: row.volumeL,
     filledAt: iso(row.filledAt),
     place,

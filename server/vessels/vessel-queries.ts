@@ -41,7 +41,7 @@ const SELECT_VESSELS = `
   SELECT v.id, v.code, v.name, v.kind, v.material, v.capacity_l::float8 AS "capacityL",
          v.cleaning_state AS "cleaningState", v.sanitised_at AS "sanitisedAt", v.retired_at AS "retiredAt",
          v.batch_id AS "batchId", v.volume_l::float8 AS "volumeL", v.filled_at AS "filledAt", v.notes, v.version,
-         b.name AS "batchName", b.kind AS "batchKind", b.started_on::text AS "batchStartedOn",
+         b.name AS "batchName", b.kind AS "batchKind", b.stage AS "batchStage", b.started_on::text AS "batchStartedOn",
          c.sanitised_valid_days AS "sanitisedValidDays"
     FROM vessels v
     JOIN cellars c ON c.id = v.cellar_id
@@ -55,6 +55,7 @@ export interface VesselFilter {
   state?: VesselState;
   freeAndSanitised?: boolean;
   minCapacityL?: number;
+  capacityL?: number;
   rackId?: string;
   ids?: string[];
   excludeIds?: string[];
@@ -72,6 +73,7 @@ function whereClause(p: Params, cellarId: string, filter: VesselFilter, now: Dat
   if (filter.state) conditions.push(stateCondition(filter.state, moment));
   if (filter.freeAndSanitised) conditions.push(stateCondition('sanitised', moment));
   if (filter.minCapacityL !== undefined) conditions.push(`v.capacity_l >= ${p.add(filter.minCapacityL)}`);
+  if (filter.capacityL !== undefined) conditions.push(`v.capacity_l = ${p.add(filter.capacityL)}`);
   if (filter.rackId) {
     conditions.push(
       `EXISTS (SELECT 1 FROM placements p JOIN shelves s ON s.id = p.shelf_id WHERE p.vessel_id = v.id AND s.rack_id = ${p.add(filter.rackId)})`,

@@ -23,6 +23,31 @@ export function daysBetween(a: Date | string, b: Date | string): number {
   return days < 0 ? -whole : whole;
 }
 
+const CALENDAR_DATE = /^(\d{4})-(\d{2})-(\d{2})/;
+
+/**
+ * The one age rule of the cellar: whole calendar days from the day something started to
+ * `today`, both local calendar dates (the start day itself is day 0, never negative). Every
+ * screen counts a batch's or vessel's age with this, so the same start shows the same number.
+ * @param startedOn - the local start date, YYYY-MM-DD (a longer ISO string is cut to its date)
+ * @param today - the local date to count to, YYYY-MM-DD
+ */
+export function ageInDays(startedOn: string, today: string): number {
+  const from = calendarDay(startedOn, 'startedOn', 'Start date');
+  const to = calendarDay(today, 'today', 'Today');
+  return Math.max(0, Math.round((to - from) / DAY_MS));
+}
+
+/** A YYYY-MM-DD date as the UTC midnight of that calendar day, in milliseconds. */
+function calendarDay(value: unknown, field: string, label: string): number {
+  const m = typeof value === 'string' ? CALENDAR_DATE.exec(value) : null;
+  const ms = m ? Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])) : NaN;
+  if (!m || Number.isNaN(ms) || new Date(ms).getUTCDate() !== Number(m[3])) {
+    throw new CalcInputError(field, `${label} must be a calendar date written YYYY-MM-DD (got ${JSON.stringify(value)}).`);
+  }
+  return ms;
+}
+
 /**
  * The same day-of-month `months` calendar months later, in UTC; a day that the
  * target month lacks falls back to its last day (31 Jan + 1 month = 28/29 Feb).

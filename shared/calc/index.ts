@@ -148,7 +148,11 @@ export {
 
 export { type BottlesFromInput, DEFAULT_BOTTLES_PER_CASE, bottlesFrom, casesFrom } from './bottling';
 
-export { type AgeMilestone, AGE_MILESTONE_MONTHS, daysBetween, addMonths, ageMilestones } from './ages';
+export { type TypedGravity, readTypedGravity } from './gravity-entry';
+
+export { type GravityPart, type AbvPart, mixedGravity, mixedAbv } from './mixing';
+
+export { type AgeMilestone, AGE_MILESTONE_MONTHS, daysBetween, ageInDays, addMonths, ageMilestones } from './ages';
 
 export {
   type AnnualVolumeInput,

@@ -8,6 +8,7 @@ import {
   type JournalKind,
   type JournalPayload,
 } from '../schemas/journal';
+import { emptyVesselRequestSchema } from '../schemas/vessel-emptying';
 
 /**
  * The journal's rules, for both sides: the one order of entries, how amendments merge into
@@ -115,6 +116,8 @@ export const CORRECTABLE_FIELDS = {
     yeastName: start.yeast.shape.name,
     yeastToleranceAbv: start.yeast.shape.toleranceAbv,
   },
+  /** Why a vessel was poured out; the litres and the vessel are what happened and stay. */
+  emptied: { reason: emptyVesselRequestSchema.shape.reason, note: emptyVesselRequestSchema.shape.note },
 } satisfies Partial<Record<JournalKind, z.ZodRawShape>>;
 
 export type CorrectableKind = keyof typeof CORRECTABLE_FIELDS;
@@ -129,6 +132,14 @@ export function correctableFieldNames(kind: JournalKind): string[] {
   return isCorrectable(kind) ? Object.keys(CORRECTABLE_FIELDS[kind]) : [];
 }
 
+/** How a refusal names an entry of each kind ("a reading" for those not listed). */
+const CORRECTION_LABELS: Partial<Record<CorrectableKind, string>> = {
+  tasted: 'a tasting',
+  addition: 'an addition',
+  started: 'the start',
+  emptied: 'an emptying',
+};
+
 /**
  * The strict schema for an amendment's `changes` to an entry of `kind`: only its correctable
  * fields, each optional, at least one of them.
@@ -136,7 +147,7 @@ export function correctableFieldNames(kind: JournalKind): string[] {
 export function correctionSchema(kind: CorrectableKind) {
   const shape = CORRECTABLE_FIELDS[kind];
   const fields = Object.keys(shape).join(', ');
-  const label = kind === 'tasted' ? 'a tasting' : kind === 'addition' ? 'an addition' : kind === 'started' ? 'the start' : `a ${kind}`;
+  const label = CORRECTION_LABELS[kind] ?? `a ${kind}`;
   return z
     .strictObject(shape, {
       error: (issue) =>

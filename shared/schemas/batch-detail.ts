@@ -19,6 +19,8 @@ export const batchDetailSchema = batchSummarySchema.extend({
   lots: z.array(
     z.object({ id: z.uuid(), code: z.string(), bottledOn: z.string(), bottleMl: z.number().int(), bottleCount: z.number().int(), bottlesLeft: z.number().int() }),
   ),
+  /** For a split or blend: when it became a batch of its own (its age still counts from the must's start). */
+  ownSince: z.string().nullable().optional(),
   /** Oak or other additions still in, with their planned removal date. */
   additionsIn: z.array(z.object({ entryId: z.uuid(), name: z.string(), category: z.string(), removeOn: z.string().nullable() })),
 });

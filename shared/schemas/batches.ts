@@ -126,6 +126,8 @@ export const batchSummarySchema = z.object({
   lastRackedAt: z.string().nullable(),
   needsRacking: z.boolean(),
   yeastToleranceAbv: z.number(),
+  /** Where the batch is: each vessel holding it and the rack slot it stands in (lists only). */
+  whereabouts: z.array(z.object({ vesselName: z.string(), place: slotRefSchema.nullable() })).optional(),
 });
 export type BatchSummary = z.infer<typeof batchSummarySchema>;
 
@@ -154,5 +156,7 @@ export const batchReadingSchema = z.object({
   correctedSg: z.number(),
   temperatureC: z.number().nullable(),
   ph: z.number().nullable(),
+  /** Set on a split's readings taken in the batch it came from, before the split. */
+  inheritedFrom: z.object({ batchId: z.uuid(), name: z.string() }).optional(),
 });
 export type BatchReading = z.infer<typeof batchReadingSchema>;

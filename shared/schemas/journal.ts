@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { TASTING_POINTS_MAX, TASTING_POINTS_MIN } from '../domain/tasting-scale';
 import { batchKindSchema, gravitySchema, isoDateSchema } from './batches';
 import { DATE_RANGE_MESSAGE, MIN_LITRES, MIN_LITRES_MESSAGE, yearInRange } from './value-ranges';
 
@@ -8,7 +9,25 @@ const vesselVolume = z.object({ vesselId: z.uuid(), vesselName: z.string(), volu
 export const ADDITION_CATEGORIES = ['fruit', 'oak', 'spice', 'nutrient', 'stabiliser', 'sweetener', 'fining', 'acid', 'tannin', 'other'] as const;
 export const additionCategorySchema = z.enum(ADDITION_CATEGORIES);
 
-export const TASTING_SCORE_MAX = 20;
+/** Tasting scores are points of Cellarwright's own scale, each with a word (shared/domain/tasting-scale.ts). */
+export const TASTING_SCORE_MIN = TASTING_POINTS_MIN;
+export const TASTING_SCORE_MAX = TASTING_POINTS_MAX;
+
+/** What a vessel was topped up with: it decides how gravity and strength follow (shared/domain/top-up-figures.ts). */
+export const TOP_UP_LIQUIDS = ['water', 'sugar-water', 'honey-water', 'same-batch', 'other-wine'] as const;
+export const topUpLiquidSchema = z.object({
+  kind: z.enum(TOP_UP_LIQUIDS),
+  /** Its specific gravity, if known (water is 1.000). */
+  sg: gravitySchema.nullable().default(null),
+  /** For another wine or mead: its % ABV, if known. */
+  abv: z.number().min(0, 'at least 0 %').max(25, 'at most 25 %').nullable().default(null),
+});
+export type TopUpLiquid = z.infer<typeof topUpLiquidSchema>;
+
+/** Why a vessel was poured out (an emptying); 'other' says why in its note. */
+export const EMPTYING_REASONS = ['spoiled', 'spilled', 'drunk', 'other'] as const;
+export const emptyingReasonSchema = z.enum(EMPTYING_REASONS);
+export type EmptyingReason = z.infer<typeof emptyingReasonSchema>;
 
 /**
  * Every kind of journal entry and what it records. One discriminated union, stored as the
@@ -50,7 +69,17 @@ export const journalPayloadSchema = z.discriminatedUnion('kind', [
     removeOn: z.string().nullable(),
   }),
   z.object({ kind: z.literal('removed'), additionEntryId: z.uuid(), name: z.string() }),
-  z.object({ kind: z.literal('topped-up'), vesselId: z.uuid(), vesselName: z.string(), volumeL: z.number(), with: z.string() }),
+  z.object({
+    kind: z.literal('topped-up'),
+    vesselId: z.uuid(),
+    vesselName: z.string(),
+    volumeL: z.number(),
+    with: z.string(),
+    // Entries written before the liquid was asked for have neither.
+    liquid: topUpLiquidSchema.optional(),
+    /** Litres of the batch before the top-up, for the mixing rule. */
+    batchVolumeBeforeL: z.number().optional(),
+  }),
   z.object({ kind: z.literal('degassed'), vesselId: z.uuid().nullable(), note: z.string() }),
   z.object({
     kind: z.literal('tasted'),
@@ -74,6 +103,15 @@ export const journalPayloadSchema = z.discriminatedUnion('kind', [
   }),
   z.object({ kind: z.literal('split'), childBatchId: z.uuid(), childName: z.string(), vessels: z.array(vesselVolume) }),
   z.object({ kind: z.literal('blended'), childBatchId: z.uuid(), childName: z.string(), volumeL: z.number() }),
+  /** A vessel poured out (spoiled, spilled, drunk): the liquid leaves the batch, the vessel is left dirty. */
+  z.object({
+    kind: z.literal('emptied'),
+    vesselId: z.uuid(),
+    vesselName: z.string(),
+    volumeL: z.number(),
+    reason: emptyingReasonSchema,
+    note: z.string().default(''),
+  }),
   z.object({
     kind: z.literal('amendment'),
     reason: z.string(),
@@ -153,6 +191,7 @@ export const removalRequestSchema = z.object({ additionEntryId: z.uuid(), at: wh
 
 export const topUpRequestSchema = vesselFill.extend({
   with: z.string().trim().min(1, 'what did you top up with?').max(80),
+  liquid: topUpLiquidSchema.optional(),
   at: when,
 });
 
@@ -162,7 +201,13 @@ export const tasteRequestSchema = z.object({
   appearance: z.string().max(500).default(''),
   aroma: z.string().max(500).default(''),
   flavour: z.string().max(1000).default(''),
-  score: z.number().min(0).max(TASTING_SCORE_MAX, `at most ${TASTING_SCORE_MAX}`).nullable().default(null),
+  score: z
+    .number()
+    .int('a whole point of the scale')
+    .min(TASTING_SCORE_MIN, `at least ${TASTING_SCORE_MIN}`)
+    .max(TASTING_SCORE_MAX, `at most ${TASTING_SCORE_MAX}`)
+    .nullable()
+    .default(null),
   at: when,
 });
 

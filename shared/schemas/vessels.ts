@@ -45,7 +45,8 @@ export const vesselSchema = z.object({
   /** When it was last sanitised (meaningful while empty). */
   sanitisedAt: z.string().nullable(),
   batch: z
-    .object({ id: z.uuid(), name: z.string(), kind: z.string() })
+    // `stage` decides whether headspace is warned about (shared/domain/headspace-rule.ts).
+    .object({ id: z.uuid(), name: z.string(), kind: z.string(), stage: z.string().optional() })
     .nullable(),
   volumeL: z.number().nullable(),
   filledAt: z.string().nullable(),
@@ -95,6 +96,8 @@ export const vesselListQuerySchema = z.object({
   /** Empty, sanitised (not lapsed) and not retired. */
   freeAndSanitised: booleanQuery.optional(),
   minCapacityL: z.coerce.number().min(0).max(20000).optional(),
+  /** Exactly this capacity (Today's size tiles). */
+  capacityL: z.coerce.number().min(0).max(20000).optional(),
   rackId: z.uuid().optional(),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),

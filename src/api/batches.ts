@@ -21,7 +21,7 @@ import type {
 } from '@shared/schemas/journal';
 import { rackTargetSuggestionSchema, type Vessel } from '@shared/schemas/vessels';
 import type { RackingStage } from '@shared/calc';
-import { request } from './http';
+import { request, requestOrQueue } from './http';
 import { cellarPath, withQuery } from './paths';
 import { listVessels } from './vessels';
 
@@ -52,15 +52,24 @@ const operation =
   (cellarId: string, batchId: string, body: Body): Promise<OperationResult> =>
     request('POST', batchPath(cellarId, batchId, path), operationResultSchema, body);
 
-export const logReading = operation<ReadingRequest>('readings');
+/**
+ * Journal writes a phone may make without signal: kept on the phone and sent later with the
+ * moment they were made (src/offline/), so a queued reading keeps its own time.
+ */
+const queueableOperation =
+  <Body extends object>(path: string, kind: 'reading' | 'note' | 'tasting', label: (body: Body) => string) =>
+  (cellarId: string, batchId: string, body: Body): Promise<OperationResult> =>
+    requestOrQueue('POST', batchPath(cellarId, batchId, path), operationResultSchema, body, { kind, label: label(body), cellarId, stampField: 'at' });
+
+export const logReading = queueableOperation<ReadingRequest>('readings', 'reading', (r) => `Reading ${Number(r.sg).toFixed(3)}`);
 export const rackBatch = operation<RackRequest>('rackings');
 export const splitBatch = operation<z.input<typeof splitRequestSchema>>('splits');
 export const addAddition = operation<AdditionRequest>('additions');
 export const removeAddition = operation<z.input<typeof removalRequestSchema>>('removals');
 export const topUpBatch = operation<z.input<typeof topUpRequestSchema>>('top-ups');
 export const degasBatch = operation<z.input<typeof degasRequestSchema>>('degassings');
-export const tasteBatch = operation<z.input<typeof tasteRequestSchema>>('tastings');
-export const addNote = operation<z.input<typeof noteRequestSchema>>('notes');
+export const tasteBatch = queueableOperation<z.input<typeof tasteRequestSchema>>('tastings', 'tasting', () => 'Tasting notes');
+export const addNote = queueableOperation<z.input<typeof noteRequestSchema>>('notes', 'note', (n) => `Note: ${n.text.slice(0, 40)}`);
 
 /** Blends vessels of two or more batches into a new batch; answers with the new batch. */
 export const blendBatches = (cellarId: string, body: z.input<typeof blendRequestSchema>): Promise<OperationResult> =>

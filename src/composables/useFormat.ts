@@ -1,7 +1,9 @@
 import dayjs from 'dayjs';
 import relativeTime from 'dayjs/plugin/relativeTime';
 import { computed } from 'vue';
-import { formatMass, formatTemperature, formatVolume, litresFrom, litresTo } from '@shared/calc';
+import { ageInDays, formatMass, formatTemperature, formatVolume, litresFrom, litresTo } from '@shared/calc';
+import { usePreferencesStore } from '@/stores/preferences';
+import { datesInStyle, formatDateInStyle } from './date-style';
 import { useUnits } from './useUnits';
 
 dayjs.extend(relativeTime);
@@ -13,6 +15,13 @@ dayjs.extend(relativeTime);
 export function useFormat() {
   const { system } = useUnits();
   const volumeUnit = computed(() => (system.value === 'us' ? 'US gal' : 'L'));
+  const preferences = usePreferencesStore();
+  /** A calendar date (YYYY-MM-DD) or an instant (its local day) in the user's date style. */
+  const date = (iso: string | Date | null | undefined) => {
+    if (!iso) return '—';
+    const day = typeof iso === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(iso) ? iso : dayjs(iso).format('YYYY-MM-DD');
+    return formatDateInStyle(day, preferences.dateStyle);
+  };
 
   return {
     system,
@@ -32,10 +41,12 @@ export function useFormat() {
     /** Litres to the user's unit, for filling an input. */
     fromLitres: (litres: number) => Number(litresTo(litres, volumeUnit.value === 'L' ? 'L' : 'US gal').toFixed(2)),
     gravity: (sg: number | null | undefined) => (sg == null ? '—' : sg.toFixed(3)),
-    date: (iso: string | Date | null | undefined) => (iso ? dayjs(iso).format('D MMM YYYY') : '—'),
-    dateTime: (iso: string | Date | null | undefined) => (iso ? dayjs(iso).format('D MMM YYYY, HH:mm') : '—'),
+    date,
+    dateTime: (iso: string | Date | null | undefined) => (iso ? `${date(iso)}, ${dayjs(iso).format('HH:mm')}` : '—'),
+    /** A message (a server's, say) with its YYYY-MM-DD dates in the user's style. */
+    datesInMessage: (message: string) => datesInStyle(message, preferences.dateStyle),
     fromNow: (iso: string | Date | null | undefined) => (iso ? dayjs(iso).fromNow() : '—'),
-    /** Whole days since a date. */
-    daysSince: (iso: string | Date) => dayjs().startOf('day').diff(dayjs(iso).startOf('day'), 'day'),
+    /** Whole days since a date, by the cellar's one age rule (shared/calc ageInDays). */
+    daysSince: (iso: string | Date) => ageInDays(dayjs(iso).format('YYYY-MM-DD'), dayjs().format('YYYY-MM-DD')),
   };
 }

@@ -19,6 +19,7 @@ export interface RouteParams {
   scan: InCellar;
   batches: InCellar;
   batch: InCellar<{ batchId: string }>;
+  'batch-family': InCellar<{ batchId: string }>;
   vessels: InCellar;
   vessel: InCellar<{ vesselId: string }>;
   bottles: InCellar;
@@ -78,6 +79,7 @@ export const routes: NamedRoute[] = [
       { path: 'scan', name: 'scan', component: () => import('@/pages/ScanPage.vue'), meta: { title: 'Scan' } },
       { path: 'batches', name: 'batches', component: () => import('@/pages/BatchesPage.vue'), meta: { title: 'Batches' } },
       { path: 'batches/:batchId', name: 'batch', component: () => import('@/pages/BatchPage.vue'), meta: { title: 'Batch' } },
+      { path: 'batches/:batchId/family', name: 'batch-family', component: () => import('@/pages/BatchFamilyPage.vue'), meta: { title: 'Compare' } },
       { path: 'vessels', name: 'vessels', component: () => import('@/pages/VesselsPage.vue'), meta: { title: 'Vessels' } },
       { path: 'vessels/:vesselId', name: 'vessel', component: () => import('@/pages/VesselPage.vue'), meta: { title: 'Vessel' } },
       { path: 'bottles', name: 'bottles', component: () => import('@/pages/BottlesPage.vue'), meta: { title: 'Bottles' } },
@@ -98,10 +100,8 @@ export const routes: NamedRoute[] = [
     name: 'label-url',
     component: () => import('@/pages/NoSuchLabelPage.vue'),
     meta: { public: true },
-    beforeEnter: (to) => {
-      window.location.replace(to.fullPath);
-      return false;
-    },
+    // Without signal, the record kept on this phone (src/offline/label-without-signal.ts).
+    beforeEnter: async (to) => (await import('@/offline/label-without-signal')).openLabelUrl(String(to.params.code), to.fullPath),
   },
   { path: '/card/:code', name: 'bottle-card', component: () => import('@/pages/BottleCardPage.vue'), meta: { public: true, title: 'Bottle card' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/pages/NotFoundPage.vue'), meta: { public: true, title: 'Not found' } },

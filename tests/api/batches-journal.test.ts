@@ -112,6 +112,8 @@ describe('top-ups, degassing, tastings and notes', () => {
       result,
       vessels: [vessel],
     } = await batchInVessels(ds, crew, [20], {}, { name: 'Demijohn 4', capacityL: 23 });
+    // Past primary (headspace is not warned about while a batch is in primary: tests/api/batch-family.test.ts).
+    await ds.query(`UPDATE batches SET stage = 'secondary' WHERE id = $1`, [result.batch.id]);
     const before = await vesselRow(ds, vessel.id);
     const res = await crew.as.hand.post(url(result.batch.id, 'top-ups')).send({ vesselId: vessel.id, volumeL: 1, with: 'Spare must' });
     expect(res.status).toBe(201);
@@ -153,18 +155,21 @@ describe('top-ups, degassing, tastings and notes', () => {
     const degassed = await crew.as.hand.post(url(result.batch.id, 'degassings')).send({ vesselId: vessel.id, note: 'Wand, 3 minutes' });
     expect(degassed.status).toBe(201);
     expect(degassed.body.batch.journal[0].payload).toEqual({ kind: 'degassed', vesselId: vessel.id, note: 'Wand, 3 minutes' });
-    const tasted = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ aroma: 'Honey and bramble', flavour: 'Dry, warm', score: 15.5 });
+    const tasted = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ aroma: 'Honey and bramble', flavour: 'Dry, warm', score: 6 });
     expect(tasted.status).toBe(201);
     expect(tasted.body.batch.journal[0].payload).toEqual({
       kind: 'tasted',
       appearance: '',
       aroma: 'Honey and bramble',
       flavour: 'Dry, warm',
-      score: 15.5,
+      score: 6,
     });
-    const tooHigh = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ score: 21 });
+    // Cellarwright's own 8-point scale (shared/domain/tasting-scale.ts): whole points 1 to 8.
+    const tooHigh = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ score: 9 });
     expect(tooHigh.status).toBe(400);
-    expect(tooHigh.body.message).toBe('body.score: at most 20');
+    expect(tooHigh.body.message).toBe('body.score: at most 8');
+    expect((await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ score: 0 })).status).toBe(400);
+    expect((await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ score: 5.5 })).status).toBe(400);
     const note = await crew.as.hand.post(url(result.batch.id, 'notes')).send({ text: 'Airlock bubbling every 4 s' });
     expect(note.status).toBe(201);
     expect((await crew.as.hand.post(url(result.batch.id, 'notes')).send({ text: '   ' })).status).toBe(400);
@@ -241,12 +246,12 @@ describe('amendments', () => {
     const removal = await crew.as.hand.post(url(result.batch.id, 'removals')).send({ additionEntryId: added.body.entryId }).expect(201);
     expect(removal.body.batch.journal[0].payload.name).toBe('French oak spiral');
 
-    const tasted = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ score: 12 }).expect(201);
+    const tasted = await crew.as.hand.post(url(result.batch.id, 'tastings')).send({ score: 5 }).expect(201);
     expect(
       (
         await crew.as.hand
           .post(url(result.batch.id, `journal/${tasted.body.entryId}/amendments`))
-          .send({ reason: 'Typo', changes: { score: 14, aroma: 'Pear' } })
+          .send({ reason: 'Typo', changes: { score: 6, aroma: 'Pear' } })
       ).status,
     ).toBe(201);
     const note = await crew.as.hand.post(url(result.batch.id, 'notes')).send({ text: 'Racked tomorow' }).expect(201);

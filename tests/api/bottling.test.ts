@@ -145,7 +145,9 @@ describe('bottling a finished batch', () => {
     const codes = [lot.code, ...lot.cases.map((c: { code: string }) => c.code)];
     expect(new Set(codes).size).toBe(codes.length);
     for (const code of codes) expect(labelCodeSchema.safeParse(code).success).toBe(true);
-    expect(res.body.cautions).toEqual(expect.arrayContaining([CAUTION_BOTTLE_PRESSURE, CAUTION_SULFITES]));
+    expect(res.body.cautions).toEqual(expect.arrayContaining([CAUTION_SULFITES]));
+    // A batch that reads finished gets no bottle-pressure caution.
+    expect(res.body.cautions).not.toContain(CAUTION_BOTTLE_PRESSURE);
 
     for (const v of vessels) {
       const after = await ds.getRepository(Vessel).findOneByOrFail({ id: v.id });

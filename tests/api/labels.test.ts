@@ -9,7 +9,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { abvBy } from '../../shared/calc';
 import { cellOrigin, mm } from '../../server/labels/layout';
 import { renderLabelsPdf } from '../../server/labels/render';
-import { vesselLabel } from '../../server/labels/content';
+import { labelDate, vesselLabel } from '../../server/labels/content';
+import { localDate } from '../../server/core/local-date';
 import { fitText } from '../../server/labels/text-fit';
 import { LABELS_DIR, labelTemplates, LabelTemplateError, loadTemplates } from '../../server/labels/templates';
 import type { LabelTemplate } from '../../server/labels/template-schema';
@@ -246,11 +247,22 @@ describe('what the labels say', () => {
     const text = await textOf({ vessels: `${codes.v1.id},${codes.v2.id}` });
     const abv = abvBy(1.112, 1.01).toFixed(1);
     expect(text).toContain('Bramble Melomel');
-    expect(text).toContain('Melomel (fruit mead)');
     expect(text).toContain('Started 10 Jan 2026');
     expect(text).toContain('OG 1.112');
     expect(text).toMatch(new RegExp(`ABV\\s+${abv.replace('.', '\\.')} % \\(est\\., Balling\\)`));
     expect(text).toMatch(/ABV —/);
+  });
+
+  it('prints what does not change on a vessel label, and its contents only with the day they were printed', async () => {
+    const printedOn = labelDate(localDate(new Date(), crew.cellar.timeZone ?? 'UTC'));
+    const filled = await textOf({ vessels: codes.v1.id });
+    expect(filled).toMatch(/Carboy · 23 L/);
+    expect(filled).toContain(codes.v1.code);
+    expect(filled).toContain(`Contents on ${printedOn}`);
+    const empty = await textOf({ vessels: codes.v3.id });
+    expect(empty).toContain('Jug 3');
+    expect(empty).toContain(codes.v3.code);
+    expect(empty).not.toMatch(/Empty|Contents on|Started|OG|ABV/);
   });
 
   it('says "Contains sulfites" only on cases of a lot with added sulfite', async () => {

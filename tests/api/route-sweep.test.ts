@@ -29,6 +29,8 @@ const OPEN_ROUTES = new Set([
   'POST /api/mail/unsubscribe',
   // The calendar feed: its file name carries a secret token, and only that token opens it.
   'GET /calendar/:file',
+  // Digital hydrometers: a device token in the Authorization header is the permission (401 without).
+  'POST /api/ingest/readings',
 ]);
 /** Routes that need a session but no cellar: they answer only about the caller. */
 const SIGNED_IN_ROUTES = new Set(['GET /api/auth/me', 'GET /api/cellars', 'POST /api/auth/invitation/accept', 'GET /api/scan/:code']);

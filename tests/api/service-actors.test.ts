@@ -36,6 +36,8 @@ import { ensureDefaultPlans, plansOf } from '../../server/plans/plan-queries';
 import { planWriteSchema, type PlanRuleInput } from '../../shared/schemas/plans';
 import { oneOffTaskRequestSchema } from '../../shared/schemas/tasks';
 import { sanitisedVessel } from '../helpers/vessels';
+import { emptyVesselRequestSchema } from '../../shared/schemas/vessel-emptying';
+import { deviceCreateSchema, deviceReadingSchema } from '../../shared/schemas/devices';
 
 /**
  * The inner door. Every function a `server/<aggregate>/*.service.ts` module exports is a
@@ -56,6 +58,7 @@ const services = Object.entries(modules).flatMap(([file, exports]) =>
 const READS = new Set([
   'listBatches',
   'getBatch',
+  'batchFamily',
   'getCase',
   'listLots',
   'getLot',
@@ -99,6 +102,9 @@ const READS = new Set([
   'getMyMailSettings',
   // A write every member, Guests too, may make: it changes only the caller's own e-mail settings.
   'setMyMailSettings',
+  // Digital hydrometers (server/devices): the list is Keepers' only, the chart series any member's.
+  'listDevices',
+  'getDeviceSeries',
 ]);
 
 /** What a write is tried with: a victim cellar's things, as the service's caller would pass them. */
@@ -122,6 +128,8 @@ interface Victim {
   invitationId: string;
   /** A message of the victim cellar that failed to send. */
   failedMailId: string;
+  /** A hydrometer in the victim batch's held vessel. */
+  deviceId: string;
 }
 
 const testRule: PlanRuleInput = {
@@ -207,6 +215,7 @@ const WRITES: Record<string, { args: (v: Victim) => unknown[]; ownCellarOnly?: t
   setCleaning: { args: (v) => [v.emptyVesselId, parse(vesselCleaningSchema, { state: 'dirty' })] },
   setRetired: { args: (v) => [v.emptyVesselId, parse(vesselRetireSchema, { retired: true })] },
   moveVessel: { args: (v) => [v.emptyVesselId, parse(moveSchema, { to: { shelfId: v.shelfId, slot: 2 } })] },
+  emptyVessel: { args: (v) => [v.heldVesselId, parse(emptyVesselRequestSchema, { reason: 'spoiled' })] },
   deleteVessel: { args: (v) => [v.emptyVesselId] },
   createRack: { args: () => [parse(rackCreateSchema, { name: 'Test rack', shelves: [4] })], ownCellarOnly: true },
   updateRack: { args: (v) => [v.rackId, parse(rackUpdateSchema, { name: 'Renamed rack' })] },
@@ -237,6 +246,11 @@ const WRITES: Record<string, { args: (v: Victim) => unknown[]; ownCellarOnly?: t
   },
   // A restore makes a new cellar from an archive of the victim's own (the upload streams lazily).
   restoreCellar: { args: () => [archiveOf(victim.cellar.id)], ownCellarOnly: true },
+  createDevice: { args: (v) => [parse(deviceCreateSchema, { name: 'Test hydrometer', vesselId: v.heldVesselId })] },
+  moveDevice: { args: (v) => [v.deviceId, { vesselId: v.otherHeldVesselId }] },
+  revokeDevice: { args: (v) => [v.deviceId] },
+  // A device posts as the cellar's own device job; here the same service is called as each actor.
+  recordDeviceReading: { args: (v) => [v.deviceId, parse(deviceReadingSchema, { sg: 1.05 })] },
   addPhoto: {
     args: (v) => [v.batchId, { mimeType: 'image/png', stored: Buffer.from([1]), thumbnail: Buffer.from([1]) } as unknown as CheckedPhoto, 'caption'],
   },
@@ -296,6 +310,12 @@ beforeAll(async () => {
       return (await plansOf(tx, victim.cellar.id))[0]!.id;
     }),
     ...(await victimMail(ds, victim)),
+    deviceId: (
+      await ds.query(
+        `INSERT INTO devices (cellar_id, vessel_id, name, token_hash, token_end) VALUES ($1, $2, 'Victim hydrometer', sha256('victim'::bytea), 'tim1') RETURNING id`,
+        [victim.cellar.id, vessels[1].id],
+      )
+    )[0].id as string,
   };
 });
 

@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import {
   daysBetween,
+  ageInDays,
   addMonths,
   ageMilestones,
   annualVolumeUsage,
@@ -164,5 +165,29 @@ describe('production-limit messages', () => {
   it('name the value and its unit', () => {
     expectInputError(() => annualVolumeUsage({ volumesL: [], limitL: 0 }), 'limitL', 'Yearly limit must be more than zero (got 0 L).');
     expectInputError(() => annualVolumeUsage({ volumesL: [10, -2], limitL: 100 }), 'volumesL[1]', 'Volume of batch 2 cannot be negative (got -2 L).');
+  });
+});
+
+// The cellar's one age rule: whole calendar days between two local dates (Gregorian calendar:
+// 2024 is a leap year; July has 31 days).
+describe('ageInDays', () => {
+  it.each([
+    ['2026-05-03', '2026-12-02', 213],
+    ['2024-02-28', '2024-03-01', 2],
+    ['2023-02-28', '2023-03-01', 1],
+    ['2026-07-31', '2026-08-01', 1],
+    ['2026-12-02', '2026-12-02', 0],
+  ])('%s to %s is %s days', (start, today, days) => {
+    expect(ageInDays(start, today)).toBe(days);
+  });
+
+  it('reads a timestamp by its date and never counts below zero', () => {
+    expect(ageInDays('2026-05-03T23:30:00Z', '2026-05-04')).toBe(1);
+    expect(ageInDays('2026-12-05', '2026-12-02')).toBe(0);
+  });
+
+  it('refuses what is not a calendar date', () => {
+    expectInputError(() => ageInDays('2026-02-30', '2026-03-01'), 'startedOn');
+    expectInputError(() => ageInDays('2026-03-01', 'yesterday'), 'today');
   });
 });

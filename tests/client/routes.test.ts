@@ -20,6 +20,7 @@ const ALL_NAMES = {
   scan: true,
   batches: true,
   batch: true,
+  'batch-family': true,
   vessels: true,
   vessel: true,
   bottles: true,

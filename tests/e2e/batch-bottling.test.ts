@@ -52,7 +52,8 @@ describeInBrowser('Batch page: bottling into cases, in Chromium', (env) => {
     const { cases, loose } = casesFrom(26, 12);
     const expectedCases = cases + (loose > 0 ? 1 : 0);
     expect(expectedCases).toBe(3);
-    await expect.poll(() => page.textContent('[data-test=bottle-packing]')).toContain(`${expectedCases} cases in all`);
+    // In plain words: the full cases, then the part case.
+    await expect.poll(() => page.textContent('[data-test=bottle-packing]')).toContain(`26 bottles: two full cases of 12 and a part case of ${loose}`);
     expect(await page.isVisible('[data-test=caution-bottle-pressure]')).toBe(true);
 
     await page.click('[data-test=bottle-submit]');

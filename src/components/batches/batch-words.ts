@@ -1,13 +1,14 @@
-import { daysBetween } from '@shared/calc';
+import dayjs from 'dayjs';
+import { ageInDays as calendarAge } from '@shared/calc';
 import { BATCH_KIND_LABELS, type BatchKind } from '@shared/schemas/batches';
 
 /** "Melomel" rather than "Melomel (fruit mead)" where space is short. */
 export const shortKind = (kind: string) => (BATCH_KIND_LABELS[kind as BatchKind] ?? kind).replace(/\s*\(.*\)$/, '');
 
-/** Whole days since a date (shared/calc), never negative. */
+/** Whole days since a local date by the cellar's one age rule (shared/calc ageInDays), never negative. */
 export function ageInDays(since: string, now: Date = new Date()): number {
   try {
-    return Math.max(0, daysBetween(since, now));
+    return calendarAge(since, dayjs(now).format('YYYY-MM-DD'));
   } catch {
     return 0;
   }

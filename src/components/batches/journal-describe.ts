@@ -1,6 +1,9 @@
 import type { JournalPayload } from '@shared/schemas/journal';
 import { TASTING_SCORE_MAX } from '@shared/schemas/journal';
 import { isReadableDate } from '@shared/schemas/value-ranges';
+import { EMPTYING_REASON_LABELS } from '@shared/schemas/vessel-emptying';
+import { tastingWords } from '@shared/domain/tasting-scale';
+import { liquidWords } from './top-up-words';
 
 /** The formatting functions the descriptions need (useFormat provides them). */
 export interface JournalFormat {
@@ -28,7 +31,7 @@ export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryD
     case 'started':
       return {
         icon: 'play_circle',
-        title: payload.parents.length ? 'Started as a blend' : 'Started',
+        title: payload.parents.length > 1 ? 'Started as a blend' : payload.parents.length === 1 ? 'Split off as its own batch' : 'Started',
         lines: [
           `${f.volume(payload.volumeL)} into ${vesselList(payload.vessels, f)}`,
           payload.og !== null ? `Original gravity ${f.gravity(payload.og)}` : '',
@@ -65,13 +68,20 @@ export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryD
     case 'removed':
       return { icon: 'remove_circle', title: `Took out ${payload.name}`, lines: [] };
     case 'topped-up':
-      return { icon: 'vertical_align_top', title: 'Topped up', lines: [`${f.volume(payload.volumeL)} of ${payload.with} into ${payload.vesselName}`] };
+      return {
+        icon: 'vertical_align_top',
+        title: 'Topped up',
+        lines: [
+          `${f.volume(payload.volumeL)} of ${payload.with} into ${payload.vesselName}`,
+          payload.liquid ? `Liquid: ${liquidWords(payload.liquid, f.gravity)}` : '',
+        ],
+      };
     case 'degassed':
       return { icon: 'bubble_chart', title: 'Degassed', lines: [payload.note] };
     case 'tasted':
       return {
         icon: 'wine_bar',
-        title: payload.score !== null ? `Tasted · ${payload.score} / ${TASTING_SCORE_MAX}` : 'Tasted',
+        title: payload.score !== null ? `Tasted · ${tastingWords(payload.score)} (of ${TASTING_SCORE_MAX})` : 'Tasted',
         lines: [
           payload.appearance ? `Appearance: ${payload.appearance}` : '',
           payload.aroma ? `Aroma: ${payload.aroma}` : '',
@@ -96,6 +106,12 @@ export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryD
       return { icon: 'call_split', title: `Split off ${payload.childName}`, lines: [vesselList(payload.vessels, f)] };
     case 'blended':
       return { icon: 'merge', title: `Blended into ${payload.childName}`, lines: [f.volume(payload.volumeL)] };
+    case 'emptied':
+      return {
+        icon: 'format_color_reset',
+        title: `Emptied ${payload.vesselName}`,
+        lines: [`${f.volume(payload.volumeL)} poured out · ${EMPTYING_REASON_LABELS[payload.reason]}`, payload.note],
+      };
     case 'amendment':
       return { icon: 'edit', title: 'Correction', lines: [payload.reason] };
   }

@@ -1,4 +1,5 @@
-import { addMonths, daysBetween } from '@shared/calc';
+import dayjs from 'dayjs';
+import { addMonths, ageInDays } from '@shared/calc';
 
 /** Whole calendar months from `start` to `now` (shared/calc addMonths, UTC). */
 function wholeMonths(start: string | Date, now: Date): number {
@@ -12,7 +13,7 @@ function wholeMonths(start: string | Date, now: Date): number {
  * @param bottledOn - ISO date of the bottling
  */
 export function ageInBottle(bottledOn: string, now: Date = new Date()): string {
-  const days = Math.max(0, daysBetween(bottledOn, now));
+  const days = ageInDays(bottledOn, dayjs(now).format('YYYY-MM-DD'));
   const dayText = `${days} ${days === 1 ? 'day' : 'days'}`;
   const months = days < 28 ? 0 : wholeMonths(bottledOn, now);
   return months === 0 ? dayText : `${months} ${months === 1 ? 'month' : 'months'} (${dayText})`;

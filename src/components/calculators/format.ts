@@ -1,11 +1,13 @@
 import {
   formatMass,
   type AbvFormula,
-  type FermentationState,
   type Strength,
   type Sweetness,
   type UnitSystem,
 } from '@shared/calc';
+import { FERMENTATION_WORDS } from '@/components/batches/fermentation-words';
+import { formatDateInStyle } from '@/composables/date-style';
+import { usePreferencesStore } from '@/stores/preferences';
 
 /**
  * A number to a fixed count of decimals, never "-0".
@@ -48,16 +50,8 @@ export const SWEETNESS_WORDS: Record<Sweetness, string> = { dry: 'Dry', 'semi-sw
 export const STRENGTH_WORDS: Record<Strength, string> = { hydromel: 'Hydromel', standard: 'Standard', sack: 'Sack' };
 
 /** Plain words and a one-line meaning for each fermentation state. */
-export const STATE_WORDS: Record<FermentationState, { label: string; meaning: string; colour: string }> = {
-  active: { label: 'Active', meaning: 'Still fermenting well, or too few readings to judge yet.', colour: 'info' },
-  slowing: { label: 'Slowing', meaning: 'Still dropping, but slowly: keep taking readings.', colour: 'secondary' },
-  finished: { label: 'Finished', meaning: 'Steady, and either dry or with the yeast at its tolerance.', colour: 'positive' },
-  stuck: {
-    label: 'Stuck',
-    meaning: 'Steady, but above the dry end while the yeast is more than a point short of its tolerance.',
-    colour: 'negative',
-  },
-};
+/** The states' words, the same on every screen (one vocabulary: components/batches/fermentation-words.ts). */
+export const STATE_WORDS = FERMENTATION_WORDS;
 
 /**
  * Today's date as YYYY-MM-DD in this device's time zone, optionally shifted by whole days.
@@ -71,9 +65,9 @@ export function isoDate(offsetDays = 0): string {
 }
 
 /**
- * A UTC date (as the library returns them) as a readable day.
+ * A UTC date (as the library returns them) as a day in the user's date style.
  * @param date - the date
  */
 export function readableDate(date: Date): string {
-  return date.toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
+  return formatDateInStyle(date.toISOString().slice(0, 10), usePreferencesStore().dateStyle);
 }

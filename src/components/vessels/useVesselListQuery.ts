@@ -9,6 +9,8 @@ export interface VesselFilters {
   freeAndSanitised: boolean;
   /** Always litres, whatever the user types in. */
   minCapacityL: number | null;
+  /** Exactly this capacity, in litres (from Today's size tiles). */
+  capacityL?: number | null;
   rackId: string | null;
 }
 
@@ -33,8 +35,10 @@ export function useVesselListQuery() {
     return {
       q: text(route.query.q),
       state: (VESSEL_STATES as readonly string[]).includes(state) ? (state as VesselState) : null,
-      freeAndSanitised: route.query.free === 'true',
+      // `freeAndSanitised` is the API's name for it; links may carry either.
+      freeAndSanitised: route.query.free === 'true' || route.query.freeAndSanitised === 'true',
       minCapacityL: positive(route.query.min),
+      capacityL: positive(route.query.cap),
       rackId: text(route.query.rack) || null,
     };
   });
@@ -47,6 +51,7 @@ export function useVesselListQuery() {
     if (next.state) query.state = next.state;
     if (next.freeAndSanitised) query.free = 'true';
     if (next.minCapacityL) query.min = String(Number(next.minCapacityL.toFixed(3)));
+    if (next.capacityL) query.cap = String(next.capacityL);
     if (next.rackId) query.rack = next.rackId;
     if (nextPage > 1) query.page = String(nextPage);
     if (nextSize !== DEFAULT_PAGE_SIZE) query.size = String(nextSize);
@@ -66,6 +71,7 @@ export function useVesselListQuery() {
       state: filters.value.state ?? undefined,
       freeAndSanitised: filters.value.freeAndSanitised ? ('true' as const) : undefined,
       minCapacityL: filters.value.minCapacityL ?? undefined,
+      capacityL: filters.value.capacityL ?? undefined,
       rackId: filters.value.rackId ?? undefined,
       page: page.value,
       pageSize: pageSize.value,

@@ -249,7 +249,8 @@ describe('which fields may be corrected', () => {
     expect(correctableFieldNames('note')).toEqual(['text']);
     expect(correctableFieldNames('addition')).toEqual(['name', 'amount', 'unit', 'removeOn']);
     expect(correctableFieldNames('started')).toEqual(['og', 'startedOn', 'volumeL', 'yeastName', 'yeastToleranceAbv']);
-    expect(Object.keys(CORRECTABLE_FIELDS)).toEqual(['reading', 'tasted', 'note', 'addition', 'started']);
+    expect(correctableFieldNames('emptied')).toEqual(['reason', 'note']);
+    expect(Object.keys(CORRECTABLE_FIELDS)).toEqual(['reading', 'tasted', 'note', 'addition', 'started', 'emptied']);
   });
 
   it('lets no entry that moves liquid, nor an amendment, be corrected — except the start, whose figures can be put right', () => {
@@ -310,7 +311,7 @@ describe('correctionSchema', () => {
     expect(parse('reading', { sg: 1.011 })).toEqual({ sg: 1.011 });
     expect(parse('reading', { ph: 3.4 })).toEqual({ ph: 3.4 });
     expect(parse('reading', { sg: 1.023, temperatureC: 26 })).toEqual({ sg: 1.023, temperatureC: 26 });
-    expect(parse('tasted', { score: 14, aroma: 'Pear' })).toEqual({ score: 14, aroma: 'Pear' });
+    expect(parse('tasted', { score: 6, aroma: 'Pear' })).toEqual({ score: 6, aroma: 'Pear' });
     expect(parse('addition', { name: 'French oak spiral', removeOn: '2026-10-15' })).toEqual({ name: 'French oak spiral', removeOn: '2026-10-15' });
   });
 
@@ -333,11 +334,13 @@ describe('correctionSchema', () => {
     expect(refusal('reading', { ph: null })).toEqual([]);
   });
 
-  it('applies the tasting rules: a score of 0 to 20 or none, notes of bounded length', () => {
-    expect(refusal('tasted', { score: 0 })).toEqual([]);
-    expect(refusal('tasted', { score: 20 })).toEqual([]);
+  it('applies the tasting rules: a whole point of 1 to 8 (our own scale) or none, notes of bounded length', () => {
+    expect(refusal('tasted', { score: 1 })).toEqual([]);
+    expect(refusal('tasted', { score: 8 })).toEqual([]);
     expect(refusal('tasted', { score: null })).toEqual([]);
-    expect(refusal('tasted', { score: 20.5 })).toEqual(['at most 20']);
+    expect(refusal('tasted', { score: 9 })).toEqual(['at most 8']);
+    expect(refusal('tasted', { score: 0 })).toEqual(['at least 1']);
+    expect(refusal('tasted', { score: 6.5 })).toEqual(['a whole point of the scale']);
     expect(refusal('tasted', { score: -1 })).toHaveLength(1);
     expect(refusal('tasted', { appearance: 'a'.repeat(500), aroma: 'a'.repeat(500), flavour: 'a'.repeat(1000) })).toEqual([]);
     expect(refusal('tasted', { appearance: 'a'.repeat(501) })).toHaveLength(1);

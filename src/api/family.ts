@@ -1,0 +1,7 @@
+import { batchFamilySchema, type BatchFamily } from '@shared/schemas/family';
+import { request } from './http';
+import { cellarPath } from './paths';
+
+/** A batch's family (parent, splits, blends) for the Compare view. */
+export const fetchBatchFamily = (cellarId: string, batchId: string): Promise<BatchFamily> =>
+  request('GET', cellarPath(cellarId, 'batches', batchId, 'family'), batchFamilySchema);
