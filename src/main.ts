@@ -1,6 +1,6 @@
 import { createApp } from 'vue';
 import { createPinia } from 'pinia';
-import { Dialog, Loading, Notify, Quasar } from 'quasar';
+import { Dialog, Notify, Quasar } from 'quasar';
 import '@fontsource/work-sans/400.css';
 import '@fontsource/work-sans/500.css';
 import '@fontsource/work-sans/600.css';
@@ -20,7 +20,7 @@ const app = createApp(App);
 const pinia = createPinia();
 app.use(pinia);
 app.use(Quasar, {
-  plugins: { Dialog, Loading, Notify },
+  plugins: { Dialog, Notify },
   config: { brand: brandColours, notify: { position: 'top', timeout: 3500 } },
 });
 const router = createAppRouter();

@@ -13,11 +13,22 @@ const distDir = path.resolve(import.meta.dirname, '../../dist');
  * Runs an end-to-end suite against the built client (dist/) served by the real app on a
  * loopback port, in Debian's Chromium. Without Chromium the suite is skipped locally but
  * fails under CI=true.
+ * @param options.serviceWorkers - 'block' (the default) for suites that do not test working
+ *   offline: otherwise every fresh page installs the service worker and precaches the whole
+ *   client (about 2 MB) while the test runs, which on a loaded 2-core machine starved the
+ *   test's own work. The offline suite passes 'allow'.
  */
-export function describeInBrowser(name: string, body: (env: () => BrowserEnv) => void): void {
-  const missing = !chromiumAvailable() ? 'Chromium (/usr/bin/chromium)' : !fs.existsSync(path.join(distDir, 'index.html')) ? 'the built client (run `npm run build`)' : null;
+export function describeInBrowser(name: string, body: (env: () => BrowserEnv) => void, options: { serviceWorkers?: 'allow' | 'block' } = {}): void {
+  const missing = !chromiumAvailable()
+    ? 'Chromium (/usr/bin/chromium)'
+    : !fs.existsSync(path.join(distDir, 'index.html'))
+      ? 'the built client (run `npm run build`)'
+      : null;
   if (missing && process.env.CI !== 'true') {
-    describe.skip(`${name} (needs ${missing})`, () => body(() => { throw new Error('skipped'); }));
+    describe.skip(`${name} (needs ${missing})`, () =>
+      body(() => {
+        throw new Error('skipped');
+      }));
     return;
   }
   describe(name, () => {
@@ -31,7 +42,7 @@ export function describeInBrowser(name: string, body: (env: () => BrowserEnv) =>
         const s = app.listen(0, '127.0.0.1', () => resolve(s));
       });
       const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-      const browser = await launchBrowser();
+      const browser = await launchBrowser({ serviceWorkers: options.serviceWorkers ?? 'block' });
       closeBrowser = browser.close;
       env = { baseUrl, context: browser.context, ds };
     });

@@ -14,11 +14,14 @@ export function chromiumAvailable(): boolean {
  * Starts headless Chromium with a fresh profile. The flags keep it from reaching out to
  * the network on its own (this machine has none, and the page must not need any).
  */
-export async function launchBrowser(): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
+export async function launchBrowser(
+  options: { serviceWorkers?: 'allow' | 'block' } = {},
+): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
   const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: CHROMIUM_PATH,
     headless: true,
+    serviceWorkers: options.serviceWorkers ?? 'allow',
     args: [
       '--no-sandbox',
       '--disable-gpu',
