@@ -19,7 +19,7 @@ import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { chromium, type Browser, type BrowserContext } from 'playwright-core';
 import { createApp, SESSION_COOKIE } from '../../server/app';
-import { CHROMIUM_PATH, chromiumAvailable } from '../tools/browser';
+import { CHROMIUM_ARGS, CHROMIUM_PATH, chromiumAvailable } from '../tools/browser';
 import { withBenchDatabase } from './bench-database';
 import { BENCH_EMAIL, BENCH_PASSWORD, seedLargeCellar } from './large-cellar';
 
@@ -63,16 +63,7 @@ await withBenchDatabase(async ({ ds }) => {
   const browser: Browser = await chromium.launch({
     executablePath: CHROMIUM_PATH,
     headless: true,
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--disable-dev-shm-usage',
-    ],
+    args: CHROMIUM_ARGS,
   });
   /** A new context (empty cache, no service worker) signed in with the bench session. */
   const signedInContext = async (): Promise<BrowserContext> => {

@@ -43,7 +43,8 @@ const missing = !chromiumAvailable() ? 'Chromium' : !fs.existsSync(path.join(dis
       }).listen(0, '127.0.0.1', () => resolve(s));
     });
     baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-    const browser = await launchBrowser();
+    // No service worker: this suite is not about working offline (see describeInBrowser).
+    const browser = await launchBrowser({ serviceWorkers: 'block' });
     context = browser.context;
     closeBrowser = browser.close;
     crew = await makeCellarWithCrew(ds, 'Mail test cellar');

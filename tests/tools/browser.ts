@@ -6,6 +6,18 @@ import { chromium, type BrowserContext } from 'playwright-core';
 /** Debian's Chromium; never a browser downloaded by a test tool. */
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
+/** Flags that keep Chromium from reaching out to the network on its own (this machine has none). */
+export const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--disable-dev-shm-usage',
+];
+
 export function chromiumAvailable(): boolean {
   return fs.existsSync(CHROMIUM_PATH);
 }
@@ -22,16 +34,7 @@ export async function launchBrowser(
     executablePath: CHROMIUM_PATH,
     headless: true,
     serviceWorkers: options.serviceWorkers ?? 'allow',
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--disable-dev-shm-usage',
-    ],
+    args: CHROMIUM_ARGS,
   });
   return {
     context,
