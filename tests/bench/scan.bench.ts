@@ -67,7 +67,10 @@ await withBenchDatabase(async ({ ds }) => {
   });
   /** A new context (empty cache, no service worker) signed in with the bench session. */
   const signedInContext = async (): Promise<BrowserContext> => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await browser.newContext({
+      viewport: { width: 390, height: 844 },
+      serviceWorkers: process.env.BENCH_SCAN_NO_SW ? 'block' : 'allow',
+    });
     await context.addCookies([{ name: SESSION_COOKIE, value: sid, domain: '127.0.0.1', path: '/', httpOnly: true, sameSite: 'Lax' }]);
     return context;
   };
