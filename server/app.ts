@@ -95,6 +95,9 @@ export function createApp(options: AppOptions): express.Express {
   // Before any body is read: a page on another site never changes anything here.
   app.use(crossSiteGuard(options.publicUrl));
   app.use(express.json({ limit: '1mb' }));
+  // Digital hydrometers post readings with a device token and no session (server/devices/):
+  // mounted before the session and sign-in machinery they never use, as they post every few minutes.
+  app.use('/api/ingest', ingestRoutes(ds, options.deviceReadingLimit));
 
   // TypeORM's own pg pool serves the session store too: one pool per app.
   const pool = (ds.driver as unknown as { master: Pool }).master;
@@ -132,8 +135,6 @@ export function createApp(options: AppOptions): express.Express {
   // The one-click unsubscribe link of reminder mails: signed, no sign-in.
   api.use('/mail', unsubscribeRoutes(ds, options.sessionSecret));
   // Everything about cellars needs a session; unknown /api paths still answer 404.
-  // Digital hydrometers post readings with a device token, no session (server/devices/).
-  api.use('/ingest', ingestRoutes(ds, options.deviceReadingLimit));
   api.use('/cellars', requireSignIn);
   api.use('/cellars', cellarListRoutes(ds));
 
