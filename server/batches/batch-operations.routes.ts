@@ -14,6 +14,7 @@ import {
   splitRequestSchema,
   tasteRequestSchema,
   topUpRequestSchema,
+  type ReadingResult,
 } from '../../shared/schemas/journal';
 import type { Actor } from '../core/actor';
 import { cellarHandler } from '../http/handle';
@@ -29,16 +30,17 @@ import { topUp } from './top-up.service';
 const batchParams = z.object({ batchId: uuidSchema });
 const entryParams = batchParams.extend({ entryId: uuidSchema });
 
-type Operation<B extends ZodType> = (actor: Actor, tx: EntityManager, batchId: string, body: z.output<B>) => Promise<OperationResult>;
+type Operation<B extends ZodType> = (actor: Actor, tx: EntityManager, batchId: string, body: z.output<B>) => Promise<OperationResult | ReadingResult>;
 
 /**
  * /api/cellars/:cellarId/batches/:batchId/… — each POST validates its body, runs one service
- * call and answers 201 with the batch as it is now (`operationResultSchema`).
+ * call and answers 201 with the batch as it is now (`operationResultSchema`); a reading, the
+ * most frequent, answers only the reading and the stage (`readingResultSchema`).
  */
 export function batchOperationRoutes(ds: DataSource): Router {
   const router = Router({ mergeParams: true });
   const cellar = cellarHandler(ds);
-  const created = async (res: Response, result: Promise<OperationResult>) => {
+  const created = async <T>(res: Response, result: Promise<T>) => {
     const value = await result;
     res.status(201);
     return value;

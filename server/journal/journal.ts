@@ -14,6 +14,11 @@ export interface AppendedEntry {
   recordedAt: Date;
 }
 
+/** The entry, and the batch's stage once it is counted. */
+export interface AppendResult extends AppendedEntry {
+  stage: Stage;
+}
+
 /** The batch's cached figures and where its liquid is, read with the batch row locked. */
 interface BatchCaches {
   stage: Stage;
@@ -36,7 +41,7 @@ export async function appendEntry(
   batchId: string,
   payload: JournalPayload,
   options: { occurredAt?: Date; amendsEntryId?: string } = {},
-): Promise<AppendedEntry> {
+): Promise<AppendResult> {
   // Lock first: a second writer on this batch waits here and then sees this one's caches.
   const caches = await lockCaches(tx, batchId);
   const [entry]: AppendedEntry[] = await tx.query(
@@ -45,8 +50,9 @@ export async function appendEntry(
      RETURNING id, occurred_at AS "occurredAt", recorded_at AS "recordedAt"`,
     [actor.cellarId, batchId, payload.kind, payload, options.occurredAt ?? new Date(), actor.userId, options.amendsEntryId ?? null],
   );
-  await saveCaches(tx, batchId, await advanceCaches(tx, batchId, caches, payload, entry, options.amendsEntryId ?? null));
-  return entry;
+  const next = await advanceCaches(tx, batchId, caches, payload, entry, options.amendsEntryId ?? null);
+  await saveCaches(tx, batchId, next);
+  return { ...entry, stage: next.stage };
 }
 
 /**

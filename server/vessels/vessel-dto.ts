@@ -22,6 +22,8 @@ export interface VesselRow {
   batchStage?: string | null;
   /** ISO date the batch it holds was started on. */
   batchStartedOn: string | null;
+  /** The batch's original gravity, when taken. */
+  batchOg?: number | null;
   sanitisedValidDays: number;
 }
 

@@ -41,7 +41,7 @@ const SELECT_VESSELS = `
   SELECT v.id, v.code, v.name, v.kind, v.material, v.capacity_l::float8 AS "capacityL",
          v.cleaning_state AS "cleaningState", v.sanitised_at AS "sanitisedAt", v.retired_at AS "retiredAt",
          v.batch_id AS "batchId", v.volume_l::float8 AS "volumeL", v.filled_at AS "filledAt", v.notes, v.version,
-         b.name AS "batchName", b.kind AS "batchKind", b.stage AS "batchStage", b.started_on::text AS "batchStartedOn",
+         b.name AS "batchName", b.kind AS "batchKind", b.stage AS "batchStage", b.started_on::text AS "batchStartedOn", b.og::float8 AS "batchOg",
          c.sanitised_valid_days AS "sanitisedValidDays"
     FROM vessels v
     JOIN cellars c ON c.id = v.cellar_id

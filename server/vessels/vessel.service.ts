@@ -98,6 +98,7 @@ export async function getVesselDetail(actor: Actor, tx: EntityManager, vesselId:
     ...dto,
     headspace: holding ? headspace({ capacityL: row.capacityL, volumeL: row.volumeL! }) : null,
     batchStartedOn: row.batchId ? row.batchStartedOn : null,
+    batchOg: row.batchId ? (row.batchOg ?? null) : null,
     lastReading: holding ? await lastReading(tx, row.batchId!, row.id) : null,
     sanitisedUntil:
       !row.retiredAt && !row.batchId && row.cleaningState === 'sanitised' && row.sanitisedAt

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { TASTING_POINTS_MAX, TASTING_POINTS_MIN } from '../domain/tasting-scale';
-import { batchKindSchema, gravitySchema, isoDateSchema } from './batches';
+import { batchKindSchema, batchReadingSchema, gravitySchema, isoDateSchema, stageSchema } from './batches';
 import { DATE_RANGE_MESSAGE, MIN_LITRES, MIN_LITRES_MESSAGE, yearInRange } from './value-ranges';
 
 /** A vessel as the journal remembers it (names can change later). */
@@ -150,6 +150,19 @@ export const readingRequestSchema = z.object({
   at: when,
 });
 export type ReadingRequest = z.input<typeof readingRequestSchema>;
+
+/**
+ * What logging a reading answers: the reading as recorded (corrected to the hydrometer's
+ * calibration) and the batch's stage after it — what the Vessel page shows, without the whole
+ * batch. The Batch page, which shows the whole journal, reads its batch again.
+ */
+export const readingResultSchema = z.object({
+  entryId: z.uuid(),
+  reading: batchReadingSchema,
+  stage: stageSchema,
+  warnings: z.array(z.string()),
+});
+export type ReadingResult = z.infer<typeof readingResultSchema>;
 
 export const rackRequestSchema = z.object({
   /** Sources are emptied completely and become dirty. */

@@ -113,6 +113,8 @@ export const vesselPageSchema = pageOf(vesselSchema);
 export const vesselDetailSchema = vesselSchema.extend({
   headspace: z.object({ litres: z.number(), percent: z.number() }).nullable(),
   batchStartedOn: z.string().nullable(),
+  /** The batch's original gravity (the reading form's ABV so far). */
+  batchOg: z.number().nullable(),
   lastReading: z.object({ sg: z.number(), correctedSg: z.number(), at: z.string() }).nullable(),
   sanitisedUntil: z.string().nullable(),
 });

@@ -1,10 +1,5 @@
-import { z } from 'zod';
-import {
-  batchPageSchema,
-  type BatchListQuery,
-  type BatchStart,
-  type batchUpdateSchema,
-} from '@shared/schemas/batches';
+import { z, type ZodType } from 'zod';
+import { batchPageSchema, type BatchListQuery, type BatchStart, type batchUpdateSchema } from '@shared/schemas/batches';
 import { batchDetailSchema, operationResultSchema, type BatchDetail, type OperationResult } from '@shared/schemas/batch-detail';
 import type {
   AdditionRequest,
@@ -19,6 +14,7 @@ import type {
   tasteRequestSchema,
   topUpRequestSchema,
 } from '@shared/schemas/journal';
+import { readingResultSchema } from '@shared/schemas/journal';
 import { rackTargetSuggestionSchema, type Vessel } from '@shared/schemas/vessels';
 import type { RackingStage } from '@shared/calc';
 import { request, requestOrQueue } from './http';
@@ -57,19 +53,30 @@ const operation =
  * moment they were made (src/offline/), so a queued reading keeps its own time.
  */
 const queueableOperation =
-  <Body extends object>(path: string, kind: 'reading' | 'note' | 'tasting', label: (body: Body) => string) =>
-  (cellarId: string, batchId: string, body: Body): Promise<OperationResult> =>
-    requestOrQueue('POST', batchPath(cellarId, batchId, path), operationResultSchema, body, { kind, label: label(body), cellarId, stampField: 'at' });
+  <Body extends object, Result>(path: string, kind: 'reading' | 'note' | 'tasting', label: (body: Body) => string, answer: ZodType<Result>) =>
+  (cellarId: string, batchId: string, body: Body): Promise<Result> =>
+    requestOrQueue('POST', batchPath(cellarId, batchId, path), answer, body, { kind, label: label(body), cellarId, stampField: 'at' });
 
-export const logReading = queueableOperation<ReadingRequest>('readings', 'reading', (r) => `Reading ${Number(r.sg).toFixed(3)}`);
+/** A reading answers the reading and the stage, not the whole batch (the most frequent write). */
+export const logReading = queueableOperation('readings', 'reading', (r: ReadingRequest) => `Reading ${Number(r.sg).toFixed(3)}`, readingResultSchema);
 export const rackBatch = operation<RackRequest>('rackings');
 export const splitBatch = operation<z.input<typeof splitRequestSchema>>('splits');
 export const addAddition = operation<AdditionRequest>('additions');
 export const removeAddition = operation<z.input<typeof removalRequestSchema>>('removals');
 export const topUpBatch = operation<z.input<typeof topUpRequestSchema>>('top-ups');
 export const degasBatch = operation<z.input<typeof degasRequestSchema>>('degassings');
-export const tasteBatch = queueableOperation<z.input<typeof tasteRequestSchema>>('tastings', 'tasting', () => 'Tasting notes');
-export const addNote = queueableOperation<z.input<typeof noteRequestSchema>>('notes', 'note', (n) => `Note: ${n.text.slice(0, 40)}`);
+export const tasteBatch = queueableOperation(
+  'tastings',
+  'tasting',
+  (_: z.input<typeof tasteRequestSchema>) => 'Tasting notes',
+  operationResultSchema,
+);
+export const addNote = queueableOperation(
+  'notes',
+  'note',
+  (n: z.input<typeof noteRequestSchema>) => `Note: ${n.text.slice(0, 40)}`,
+  operationResultSchema,
+);
 
 /** Blends vessels of two or more batches into a new batch; answers with the new batch. */
 export const blendBatches = (cellarId: string, body: z.input<typeof blendRequestSchema>): Promise<OperationResult> =>

@@ -3,6 +3,7 @@ import { apiErrorSchema } from '@shared/schemas/common';
 import type { NewQueuedWrite } from '@/offline/outbox';
 import type { QueuedWriteKind } from '@/offline/queued-write';
 import { newIdempotencyKey } from '@/offline/idempotency-key';
+import { takeEarlyAnswer } from './early-requests';
 
 /** An error answer from the API, with the message the server chose for people. */
 export class ApiError extends Error {
@@ -64,15 +65,17 @@ export function errorFromAnswer(status: number, raw: unknown): ApiError {
 export async function request<T>(method: Method, url: string, schema?: ZodType<T>, body?: unknown, headers: Record<string, string> = {}): Promise<T> {
   let res: Response;
   try {
-    res = await fetch(url, {
-      method,
-      credentials: 'same-origin',
-      headers:
-        body === undefined
-          ? { accept: 'application/json', ...headers }
-          : { accept: 'application/json', 'content-type': 'application/json', ...headers },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    });
+    const early = method === 'GET' && Object.keys(headers).length === 0 ? takeEarlyAnswer(url) : undefined;
+    res = await (early ??
+      fetch(url, {
+        method,
+        credentials: 'same-origin',
+        headers:
+          body === undefined
+            ? { accept: 'application/json', ...headers }
+            : { accept: 'application/json', 'content-type': 'application/json', ...headers },
+        body: body === undefined ? undefined : JSON.stringify(body),
+      }));
   } catch {
     offlineHooks?.reached(false);
     throw offlineError();

@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { CALIBRATION_20C, correctGravity } from '../../shared/calc';
-import { batchDetailSchema, operationResultSchema } from '../../shared/schemas/batch-detail';
+import { batchDetailSchema } from '../../shared/schemas/batch-detail';
+import { readingResultSchema } from '../../shared/schemas/journal';
 import { batchInVessels, makeBatch } from '../helpers/batches';
 import { crewWithAgents, type Crew } from '../helpers/crew';
 import { momentDaysAgo } from '../helpers/dates';
@@ -18,37 +19,67 @@ beforeAll(async () => {
 });
 
 const readings = (batchId: string) => `${crew.batches}/${batchId}/readings`;
+/** The batch as the Batch page reads it. */
+const batchDetail = async (batchId: string) => batchDetailSchema.parse((await crew.as.guest.get(`${crew.batches}/${batchId}`)).body);
 
 describe('POST /batches/:batchId/readings', () => {
   it('keeps a reading without a temperature as it was read, and shows it as the last reading', async () => {
-    const { result, vessels: [vessel] } = await batchInVessels(ds, crew, [20]);
+    const {
+      result,
+      vessels: [vessel],
+    } = await batchInVessels(ds, crew, [20]);
     const res = await crew.as.hand.post(readings(result.batch.id)).send({ sg: 1.062, ph: 3.6, vesselId: vessel.id });
     expect(res.status).toBe(201);
-    const { batch, entryId } = operationResultSchema.parse(res.body);
-    expect(batch.readings).toEqual([{ entryId, at: expect.any(String), sg: 1.062, correctedSg: 1.062, temperatureC: null, ph: 3.6 }]);
+    // The answer is the reading and the stage, not the whole batch.
+    const answer = readingResultSchema.parse(res.body);
+    expect(res.body).not.toHaveProperty('batch');
+    const { entryId } = answer;
+    expect(answer.reading).toEqual({ entryId, at: expect.any(String), sg: 1.062, correctedSg: 1.062, temperatureC: null, ph: 3.6 });
+    expect(answer.stage).toBe('primary');
+    const batch = await batchDetail(result.batch.id);
+    expect(batch.readings).toEqual([answer.reading]);
     expect(batch.lastReading).toEqual({ sg: 1.062, at: batch.readings[0].at });
-    expect(batch.journal[0].payload).toEqual({ kind: 'reading', sg: 1.062, temperatureC: null, calibrationC: 20, correctedSg: 1.062, ph: 3.6, vesselId: vessel.id });
+    expect(batch.journal[0].payload).toEqual({
+      kind: 'reading',
+      sg: 1.062,
+      temperatureC: null,
+      calibrationC: 20,
+      correctedSg: 1.062,
+      ph: 3.6,
+      vesselId: vessel.id,
+    });
   });
 
   it('corrects for the sample temperature with shared/calc correctGravity', async () => {
     const { result } = await batchInVessels(ds, crew, [20]);
     const warm = await crew.as.hand.post(readings(result.batch.id)).send({ sg: 1.05, temperatureC: 28 });
     expect(warm.status).toBe(201);
-    const warmReading = warm.body.batch.readings[0];
+    const warmReading = readingResultSchema.parse(warm.body).reading;
+    expect((await batchDetail(result.batch.id)).readings[0]).toEqual(warmReading);
     expect(warmReading.correctedSg).toBeCloseTo(correctGravity(1.05, 28, CALIBRATION_20C), 9);
     // A warm sample reads low: the correction raises it.
     expect(warmReading.correctedSg).toBeGreaterThan(1.05);
     const old = await crew.as.hand.post(readings(result.batch.id)).send({ sg: 1.04, temperatureC: 10, calibrationC: 15.56 });
     expect(old.status).toBe(201);
-    const oldReading = old.body.batch.readings.at(-1);
+    const oldReading = readingResultSchema.parse(old.body).reading;
+    expect((await batchDetail(result.batch.id)).readings.at(-1)).toEqual(oldReading);
     expect(oldReading.correctedSg).toBeCloseTo(correctGravity(1.04, 10, 15.56), 9);
   });
 
   it('lists readings oldest first whatever order they were logged in', async () => {
     const { result } = await batchInVessels(ds, crew, [20], { startedOn: momentDaysAgo(20).slice(0, 10) });
-    await crew.as.hand.post(readings(result.batch.id)).send({ sg: 1.01, at: momentDaysAgo(1) }).expect(201);
-    await crew.as.hand.post(readings(result.batch.id)).send({ sg: 1.08, at: momentDaysAgo(15) }).expect(201);
-    await crew.as.hand.post(readings(result.batch.id)).send({ sg: 1.03, at: momentDaysAgo(7) }).expect(201);
+    await crew.as.hand
+      .post(readings(result.batch.id))
+      .send({ sg: 1.01, at: momentDaysAgo(1) })
+      .expect(201);
+    await crew.as.hand
+      .post(readings(result.batch.id))
+      .send({ sg: 1.08, at: momentDaysAgo(15) })
+      .expect(201);
+    await crew.as.hand
+      .post(readings(result.batch.id))
+      .send({ sg: 1.03, at: momentDaysAgo(7) })
+      .expect(201);
     const detail = batchDetailSchema.parse((await crew.as.guest.get(`${crew.batches}/${result.batch.id}`)).body);
     expect(detail.readings.map((r) => r.sg)).toEqual([1.08, 1.03, 1.01]);
     expect(detail.lastReading?.sg).toBe(1.01);
@@ -68,7 +99,10 @@ describe('POST /batches/:batchId/readings', () => {
 
   it('refuses a vessel that does not hold the batch, and a batch in no vessel', async () => {
     const { result } = await batchInVessels(ds, crew, [20]);
-    const { result: neighbour, vessels: [theirs] } = await batchInVessels(ds, crew, [10]);
+    const {
+      result: neighbour,
+      vessels: [theirs],
+    } = await batchInVessels(ds, crew, [10]);
     const wrong = await crew.as.hand.post(readings(result.batch.id)).send({ sg: 1.02, vesselId: theirs.id });
     expect(wrong.status).toBe(409);
     expect(wrong.body.message).toMatch(new RegExp(`^${theirs.name} changed while you were working: it now holds ${neighbour.batch.name}`));
@@ -93,7 +127,9 @@ describe('POST /batches/:batchId/readings', () => {
     const { result: theirs } = await batchInVessels(ds, other, [20]);
     const foreign = await crew.as.hand.post(readings(theirs.batch.id)).send({ sg: 1.02 });
     expect(foreign.status).toBe(404);
-    const [{ count }] = await ds.query(`SELECT COUNT(*)::int AS count FROM journal_entries WHERE batch_id = $1 AND kind = 'reading'`, [theirs.batch.id]);
+    const [{ count }] = await ds.query(`SELECT COUNT(*)::int AS count FROM journal_entries WHERE batch_id = $1 AND kind = 'reading'`, [
+      theirs.batch.id,
+    ]);
     expect(count).toBe(0);
   });
 });

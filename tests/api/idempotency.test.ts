@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { batchDetailSchema, operationResultSchema } from '../../shared/schemas/batch-detail';
+import { batchDetailSchema } from '../../shared/schemas/batch-detail';
+import { readingResultSchema } from '../../shared/schemas/journal';
 import { vesselSchema } from '../../shared/schemas/vessels';
 import { batchInVessels } from '../helpers/batches';
 import { crewWithAgents, type Crew } from '../helpers/crew';
@@ -37,7 +38,7 @@ describe('Idempotency-Key on cellar writes', () => {
     expect(second.status).toBe(201);
     expect(second.headers['idempotent-replayed']).toBe('true');
     expect(first.headers['idempotent-replayed']).toBeUndefined();
-    expect(operationResultSchema.parse(second.body).entryId).toBe(operationResultSchema.parse(first.body).entryId);
+    expect(readingResultSchema.parse(second.body).entryId).toBe(readingResultSchema.parse(first.body).entryId);
     expect(second.body).toEqual(first.body);
     expect(await readingCount(crew, result.batch.id)).toBe(1);
   });
@@ -61,7 +62,10 @@ describe('Idempotency-Key on cellar writes', () => {
     const b = await other.as.hand.post(readingsOf(other, theirs.result.batch.id)).set('Idempotency-Key', key).send({ sg: 1.02 });
     expect([a.status, b.status]).toEqual([201, 201]);
     expect(b.headers['idempotent-replayed']).toBeUndefined();
-    expect(b.body.batch.id).toBe(theirs.result.batch.id);
+    // The second answer is a reading of their own batch, not a replay of the first.
+    expect(b.body.entryId).not.toBe(a.body.entryId);
+    const [entry] = await ds.query(`SELECT batch_id AS "batchId" FROM journal_entries WHERE id = $1`, [b.body.entryId]);
+    expect(entry.batchId).toBe(theirs.result.batch.id);
     expect(await readingCount(crew, mine.result.batch.id)).toBe(1);
     expect(await readingCount(other, theirs.result.batch.id)).toBe(1);
   });

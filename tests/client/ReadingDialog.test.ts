@@ -2,7 +2,8 @@ import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { DOMWrapper, flushPromises } from '@vue/test-utils';
 import ReadingDialog from '@/components/operations/ReadingDialog.vue';
 import { fakeApi, type FakeApi } from './support/fake-api';
-import { BATCH_ID, CELLAR_ID, ENTRY_ID, VESSEL_ID, batchDetail, operationResult, signIn } from './support/fixtures';
+import { readingContextOfBatch } from '@/components/operations/reading-context';
+import { BATCH_ID, CELLAR_ID, ENTRY_ID, VESSEL_ID, batchDetail, readingResult, signIn } from './support/fixtures';
 import { fieldMessage, mountInApp, notificationsFrom, pick } from './support/mount-in-app';
 
 const batchPath = `/api/cellars/${CELLAR_ID}/batches/${BATCH_ID}`;
@@ -18,7 +19,9 @@ describe('ReadingDialog', () => {
   });
 
   async function openDialog() {
-    const mounted = await mountInApp(ReadingDialog, `/c/${CELLAR_ID}/tasks`, { props: { modelValue: true, batchId: BATCH_ID } });
+    const mounted = await mountInApp(ReadingDialog, `/c/${CELLAR_ID}/tasks`, {
+      props: { modelValue: true, batchId: BATCH_ID, context: readingContextOfBatch(batchDetail()) },
+    });
     await vi.waitFor(() => pick('[data-test=reading-sg]'));
     return mounted;
   }
@@ -28,10 +31,10 @@ describe('ReadingDialog', () => {
     await flushPromises();
   }
 
-  it('loads the batch when it opens and sends the reading as typed, from the batch’s only vessel', async () => {
-    api.on('POST', readingsPath, { status: 201, body: operationResult() });
+  it('asks the server for nothing as it opens (the page’s batch is its context) and sends the reading as typed, from the batch’s only vessel', async () => {
+    api.on('POST', readingsPath, { status: 201, body: readingResult() });
     await openDialog();
-    expect(api.callsTo('GET', batchPath)).toHaveLength(1);
+    expect(api.calls.filter((c) => c.path !== '/api/auth/me')).toEqual([]);
 
     await type('[data-test=reading-sg]', '1.050');
     await type('[data-test=reading-temperature]', '25');
@@ -45,14 +48,14 @@ describe('ReadingDialog', () => {
   });
 
   it('after the server records it, says so, shows each warning, hands the result on and closes', async () => {
-    api.on('POST', readingsPath, { status: 201, body: operationResult(['Carboy 3 has 2 L of headspace.']) });
+    api.on('POST', readingsPath, { status: 201, body: readingResult(['Carboy 3 has 2 L of headspace.']) });
     const { wrapper } = await openDialog();
     await type('[data-test=reading-sg]', '1.050');
 
     expect(await notificationsFrom(submit)).toEqual(['Reading 1.050 saved.', 'Carboy 3 has 2 L of headspace.']);
-    const done = wrapper.emitted('done') as [{ entryId: string; batch: { id: string } }][];
+    const done = wrapper.emitted('done') as [{ entryId: string; stage: string }][];
     expect(done).toHaveLength(1);
-    expect(done[0][0]).toMatchObject({ entryId: ENTRY_ID, batch: { id: BATCH_ID } });
+    expect(done[0][0]).toMatchObject({ entryId: ENTRY_ID, stage: 'primary' });
     expect(wrapper.emitted('update:modelValue')).toEqual([[false]]);
   });
 
@@ -85,7 +88,7 @@ describe('ReadingDialog', () => {
 
   it('in US units takes the temperature in °F and sends it in °C, calibrated at 60 °F', async () => {
     localStorage.setItem('cellarwright.units', 'us');
-    api.on('POST', readingsPath, { status: 201, body: operationResult() });
+    api.on('POST', readingsPath, { status: 201, body: readingResult() });
     await openDialog();
     expect(pick('[data-test=reading-temperature]').closest('.q-field')?.textContent).toContain('Temperature (°F)');
 

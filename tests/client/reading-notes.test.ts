@@ -2,7 +2,8 @@ import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { DOMWrapper, flushPromises } from '@vue/test-utils';
 import ReadingDialog from '@/components/operations/ReadingDialog.vue';
 import { fakeApi, type FakeApi } from './support/fake-api';
-import { BATCH_ID, CELLAR_ID, batchDetail, operationResult, signIn } from './support/fixtures';
+import { readingContextOfBatch } from '@/components/operations/reading-context';
+import { BATCH_ID, CELLAR_ID, batchDetail, readingResult, signIn } from './support/fixtures';
 import { fieldMessage, mountInApp, pick } from './support/mount-in-app';
 
 const batchPath = `/api/cellars/${CELLAR_ID}/batches/${BATCH_ID}`;
@@ -15,21 +16,21 @@ describe('ReadingDialog notes', () => {
     document.body.innerHTML = '';
     api = fakeApi();
     signIn(api);
-    api.on('GET', batchPath, {
-      body: batchDetail({
-        readings: [{ entryId: READING_ID, at: '2026-02-20T10:00:00.000Z', sg: 1.012, correctedSg: 1.012, temperatureC: null, ph: null }],
-      }),
-    });
+  });
+  const batch = batchDetail({
+    readings: [{ entryId: READING_ID, at: '2026-02-20T10:00:00.000Z', sg: 1.012, correctedSg: 1.012, temperatureC: null, ph: null }],
   });
 
   async function open() {
-    await mountInApp(ReadingDialog, `/c/${CELLAR_ID}/tasks`, { props: { modelValue: true, batchId: BATCH_ID } });
+    await mountInApp(ReadingDialog, `/c/${CELLAR_ID}/tasks`, {
+      props: { modelValue: true, batchId: BATCH_ID, context: readingContextOfBatch(batch) },
+    });
     await vi.waitFor(() => pick('[data-test=reading-sg]'));
   }
   const type = (text: string) => new DOMWrapper(pick<HTMLInputElement>('[data-test=reading-sg]')).setValue(text);
 
   it('takes gravity typed in points, says how it read it and sends the SG', async () => {
-    api.on('POST', readingsPath, { status: 201, body: operationResult() });
+    api.on('POST', readingsPath, { status: 201, body: readingResult() });
     await open();
     await type('1010');
     expect(fieldMessage('[data-test=reading-sg]')).toBe('read as 1.010');

@@ -31,7 +31,8 @@ describeInBrowser('Putting mistakes right from a phone, in Chromium at 390 px', 
       .post(`/api/cellars/${crew.cellar.id}/batches/${batch.id}/readings`)
       .send({ sg: 1.01, temperatureC: 20, calibrationC: 20 });
     expect(reading.status, JSON.stringify(reading.body)).toBe(201);
-    const startedId = reading.body.batch.journal.find((e: { payload: { kind: string } }) => e.payload.kind === 'started').id;
+    const detail = await api.get(`/api/cellars/${crew.cellar.id}/batches/${batch.id}`);
+    const startedId = detail.body.journal.find((e: { payload: { kind: string } }) => e.payload.kind === 'started').id;
 
     const page = await phonePage();
     await page.goto(`${baseUrl}/c/${crew.cellar.id}/batches/${batch.id}`);

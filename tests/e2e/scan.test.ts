@@ -60,6 +60,31 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     await page.waitForURL(vesselPage(carboy));
   });
 
+  it('opens a label URL signed in with the session and the record each asked for once, before the page code loads', async () => {
+    const { baseUrl } = env();
+    const page = await freshPage();
+    await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
+    const asked: string[] = [];
+    page.on('request', (r) => asked.push(new URL(r.url()).pathname));
+    const refused: string[] = [];
+    page.on('console', (m) => {
+      if (m.type() === 'error' && /Content Security Policy/i.test(m.text())) refused.push(m.text());
+    });
+    await page.goto(`${baseUrl}/s/${carboy.code}`);
+    await page.waitForURL(vesselPage(carboy));
+    await page.locator('[data-test=vessel-title]').waitFor({ state: 'visible' });
+    expect(await page.textContent('[data-test=vessel-title]')).toContain('Carboy North');
+
+    const record = `/api/cellars/${crew.cellar.id}/vessels/${carboy.id}`;
+    expect(refused).toEqual([]);
+    expect(asked.filter((p) => p === '/api/auth/me')).toHaveLength(1);
+    expect(asked.filter((p) => p === record)).toHaveLength(1);
+    // index.html's inline script asked for it: before the layout's code was even requested.
+    const layoutAt = asked.findIndex((p) => /\/assets\/MainLayout-[^/]+\.js$/.test(p));
+    expect(layoutAt).toBeGreaterThan(-1);
+    expect(asked.indexOf(record)).toBeLessThan(layoutAt);
+  });
+
   it('opens the record from a typed code on the Scan page', async () => {
     const { baseUrl } = env();
     const page = await freshPage();

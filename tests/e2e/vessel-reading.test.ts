@@ -40,6 +40,11 @@ describeInBrowser('Vessel page: logging a reading, in Chromium', (env) => {
     return page;
   }
 
+  async function batchIdOf(id: string): Promise<string> {
+    const [row] = await env().ds.query(`SELECT batch_id AS "batchId" FROM vessels WHERE id = $1`, [id]);
+    return row.batchId;
+  }
+
   async function close(page: Page): Promise<void> {
     await page.close();
     await env().context.clearCookies();
@@ -52,6 +57,11 @@ describeInBrowser('Vessel page: logging a reading, in Chromium', (env) => {
     // Glass: the carrying caution sits beside racking.
     expect(await page.isVisible('[data-test=caution-glass]')).toBe(true);
 
+    const asked: string[] = [];
+    page.on('request', (r) => {
+      const url = new URL(r.url());
+      if (url.pathname.startsWith('/api/')) asked.push(`${r.method()} ${url.pathname}`);
+    });
     await page.click('[data-test=action-reading]');
     await page.waitForSelector('[data-test=reading-dialog]');
     await page.fill('[data-test=reading-sg]', '1.050');
@@ -63,6 +73,11 @@ describeInBrowser('Vessel page: logging a reading, in Chromium', (env) => {
     expect(expected).not.toBe('1.050');
     await expect.poll(() => page.textContent('[data-test=last-reading-corrected]'), { timeout: 10_000 }).toBe(expected);
     expect(await page.textContent('[data-test=last-reading-detail]')).toContain('read 1.050');
+    // One round trip for the reading: the dialog used what the page had, the page showed the answer.
+    // Only the task card asks again (the reading may have been its task).
+    await page.waitForLoadState('networkidle');
+    const cellarApi = `/api/cellars/${crew.cellar.id}`;
+    expect(asked.filter((r) => !r.startsWith(`GET ${cellarApi}/tasks`))).toEqual([`POST ${cellarApi}/batches/${await batchIdOf(vesselId)}/readings`]);
     await close(page);
   });
 
@@ -70,7 +85,17 @@ describeInBrowser('Vessel page: logging a reading, in Chromium', (env) => {
     const page = await openVesselPage(crew.guest.email);
     await page.waitForSelector('[data-test=vessel-contents]');
     expect(await page.isVisible('[data-test=read-only-note]')).toBe(true);
-    for (const action of ['action-reading', 'action-rack', 'action-addition', 'action-top-up', 'action-move', 'action-edit', 'action-retire', 'action-delete', 'action-print-label']) {
+    for (const action of [
+      'action-reading',
+      'action-rack',
+      'action-addition',
+      'action-top-up',
+      'action-move',
+      'action-edit',
+      'action-retire',
+      'action-delete',
+      'action-print-label',
+    ]) {
       expect(await page.locator(`[data-test=${action}]`).count(), action).toBe(0);
     }
     expect(await page.locator('button', { hasText: /mark|sanitise/i }).count()).toBe(0);

@@ -1,6 +1,7 @@
 import type { SessionUser } from '@shared/schemas/auth';
 import { batchDetailSchema, type BatchDetail, type OperationResult } from '@shared/schemas/batch-detail';
 import { batchPageSchema, type BatchSummary } from '@shared/schemas/batches';
+import { readingResultSchema, type ReadingResult } from '@shared/schemas/journal';
 import type { Role } from '@shared/roles';
 import type { FakeApi } from './fake-api';
 
@@ -59,6 +60,16 @@ export function batchDetail(overrides: Partial<BatchDetail> = {}): BatchDetail {
 
 export function operationResult(warnings: string[] = [], batch: BatchDetail = batchDetail()): OperationResult {
   return { batch, entryId: ENTRY_ID, warnings };
+}
+
+/** What logging a reading answers: the reading and the stage. */
+export function readingResult(warnings: string[] = []): ReadingResult {
+  return readingResultSchema.parse({
+    entryId: ENTRY_ID,
+    reading: { entryId: ENTRY_ID, at: '2026-02-21T09:00:00.000Z', sg: 1.05, correctedSg: 1.05, temperatureC: null, ph: null },
+    stage: 'primary',
+    warnings,
+  });
 }
 
 export function batchSummary(overrides: Partial<BatchSummary> = {}): BatchSummary {
