@@ -1,6 +1,6 @@
 import { createApp } from 'vue';
 import { createPinia } from 'pinia';
-import { Dialog, Notify, Quasar } from 'quasar';
+import { Notify, Quasar } from 'quasar';
 import '@fontsource/work-sans/400.css';
 import '@fontsource/work-sans/500.css';
 import '@fontsource/work-sans/600.css';
@@ -11,6 +11,7 @@ import './css/app.css';
 import App from './App.vue';
 import { setUnauthorizedHandler } from './api/http';
 import { startOffline } from './offline/start-offline';
+import { lazyDialog } from './plugins/lazy-dialog';
 import { createAppRouter } from './router';
 import { routeTo } from './router/locations';
 import { useSessionStore } from './stores/session';
@@ -20,9 +21,11 @@ const app = createApp(App);
 const pinia = createPinia();
 app.use(pinia);
 app.use(Quasar, {
-  plugins: { Dialog, Notify },
+  plugins: { Notify },
   config: { brand: brandColours, notify: { position: 'top', timeout: 3500 } },
 });
+// $q.dialog: the confirmations' code loads on the first one, not with the first page.
+app.use(lazyDialog);
 const router = createAppRouter();
 app.use(router);
 

@@ -3,6 +3,7 @@ import { createPinia, setActivePinia } from 'pinia';
 import { Notify, Quasar } from 'quasar';
 import { createMemoryHistory } from 'vue-router';
 import type { Component } from 'vue';
+import { lazyDialog } from '@/plugins/lazy-dialog';
 import { createAppRouter } from '@/router';
 
 // As src/main.ts sets it up, except that notifications are neither grouped nor stacked newest
@@ -12,7 +13,8 @@ const QUASAR_OPTIONS = { plugins: { Notify }, config: { notify: { position: 'bot
 
 /**
  * Mounts a component the way the app runs it: a fresh Pinia, the app's real router (with its
- * sign-in guard) on memory history, already at `path`, and Quasar with the Notify plugin.
+ * sign-in guard) on memory history, already at `path`, and Quasar with the Notify plugin and
+ * `$q.dialog` loaded on first use (src/plugins/lazy-dialog.ts).
  * Quasar's dialogs and notifications render outside the component, into document.body.
  */
 export async function mountInApp<C extends Component>(component: C, path: string, options: ComponentMountingOptions<C> = {}) {
@@ -24,7 +26,7 @@ export async function mountInApp<C extends Component>(component: C, path: string
   const wrapper = mount(component, {
     ...options,
     attachTo: document.body,
-    global: { ...options.global, plugins: [pinia, router, [Quasar, QUASAR_OPTIONS]] },
+    global: { ...options.global, plugins: [pinia, router, [Quasar, QUASAR_OPTIONS], lazyDialog] },
   } as ComponentMountingOptions<C>);
   await flushPromises();
   return { wrapper, router, pinia };
