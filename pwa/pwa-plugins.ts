@@ -48,6 +48,8 @@ export function pwaPlugins(): PluginOption[] {
         clientsClaim: true,
         cleanupOutdatedCaches: true,
         runtimeCaching,
+        // Hashed files straight from the precache, without the worker's script (public/sw-static-routes.js).
+        importScripts: ['sw-static-routes.js'],
       },
     }),
   ];
