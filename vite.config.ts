@@ -4,7 +4,7 @@ import vue from '@vitejs/plugin-vue';
 import { quasar, transformAssetUrls } from '@quasar/vite-plugin';
 import { pwaPlugins } from './pwa/pwa-plugins';
 import { compression } from 'vite-plugin-compression2';
-import { EARLY_REQUESTS_SCRIPT } from './shared/early-requests';
+import { firstLoad } from './pwa/first-load';
 
 const apiTarget = process.env.API_URL ?? 'http://127.0.0.1:8460';
 
@@ -15,8 +15,8 @@ export default defineConfig({
     vue({ template: { transformAssetUrls } }),
     // No Sass: Quasar's prebuilt CSS is imported in src/main.ts.
     quasar({ sassVariables: false }),
-    // The first page's session and record are asked for while the JavaScript loads (shared/early-requests.ts).
-    { name: 'early-requests', transformIndexHtml: (html) => html.replace('/* early-requests */', () => EARLY_REQUESTS_SCRIPT) },
+    // The first page's session, record and code are asked for while the entry loads (pwa/first-load.ts).
+    firstLoad(),
     // Installable app: manifest, icons, service worker (pwa/).
     ...pwaPlugins(),
     // Brotli and gzip copies beside each file, served by server/http/client-assets.ts.

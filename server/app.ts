@@ -26,11 +26,11 @@ import { deviceRoutes } from './devices/devices.routes';
 import { ingestRoutes, type DeviceReadingLimit } from './devices/ingest.routes';
 import { cellarAccess, type CellarAccessPolicy } from './http/cellar-access';
 import { crossSiteGuard } from './http/cross-site-guard';
-import { EARLY_REQUESTS_SCRIPT_HASH } from './http/early-requests-hash';
 import { appShellFiles } from './http/app-shell-files';
 import { clientAssets, clientShell } from './http/client-assets';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { healthRoutes } from './http/health.routes';
+import { inlineScriptHashes } from './http/inline-script-hashes';
 import { requireSignIn } from './http/require-sign-in';
 import { createSessionStore } from './http/session-store';
 import { labelRoutes } from './labels/labels.routes';
@@ -83,7 +83,7 @@ export function createApp(options: AppOptions): express.Express {
       contentSecurityPolicy: {
         directives: {
           // index.html's one inline script, allowed by its hash (shared/early-requests.ts).
-          'script-src': ["'self'", EARLY_REQUESTS_SCRIPT_HASH],
+          'script-src': ["'self'", ...inlineScriptHashes(options.clientDir)],
           'img-src': ["'self'", 'data:', 'blob:'],
           'media-src': ["'self'", 'blob:'],
           // The label preview shows the PDF it already fetched (src/components/labels/LabelPreview.vue).

@@ -1,13 +1,20 @@
 /**
  * The first page of a visit asks the server for the session and its main record only after the
- * client's JavaScript has loaded and run. This small script, inlined in index.html's <head>, starts
- * those GETs while the JavaScript loads; `src/api/early-requests.ts` hands each answer to the first
- * `request()` for the same URL. A scanned label (→ the Vessel page) is the case it is for.
+ * client's JavaScript has loaded and run, and fetches the page's own code only then too. This
+ * small script, inlined in index.html's <head>, starts both while the entry script loads:
+ * - GETs of the session, the cellar's settings and a Vessel or Batch page's record, whose answers
+ *   `src/api/early-requests.ts` hands to the first `request()` for the same URL;
+ * - preloads of the layout's and the page's code, listed at build time in the JSON block
+ *   `#page-files` (pwa/first-load.ts) — a data block, which runs nothing.
+ * A scanned label (→ the Vessel page) is the case it is for.
  *
- * Plain ES5 in a string: it runs before any module, and the server allows exactly this text by
- * its hash in the Content-Security-Policy (server/app.ts), so it must not change at build.
+ * Plain ES5 in a string: it runs before any module. The server allows the inline scripts of the
+ * index.html it serves by their hashes (server/http/inline-script-hashes.ts).
  */
 export const EARLY_REQUESTS_GLOBAL = '__cellarwrightEarly';
+
+/** The id of the JSON block listing each page's files: { layout: [...], vessel: [...], … }. */
+export const PAGE_FILES_ELEMENT_ID = 'page-files';
 
 export const EARLY_REQUESTS_SCRIPT = `(function () {
   var early = (window.${EARLY_REQUESTS_GLOBAL} = {});
@@ -16,11 +23,29 @@ export const EARLY_REQUESTS_SCRIPT = `(function () {
     answer.catch(function () {});
     early[url] = answer;
   }
+  var listed = document.getElementById('${PAGE_FILES_ELEMENT_ID}');
+  var files = {};
+  try { files = listed ? JSON.parse(listed.textContent) : {}; } catch (e) {}
+  // Written into the document while it is parsed, so the parser fetches them at once (links
+  // appended from script start only after the entry module has run). Names come from the build.
+  function preload(page) {
+    (files[page] || []).forEach(function (file) {
+      if (!/^assets\\/[\\w.-]+$/.test(file)) return;
+      var kind = /\\.css$/.test(file) ? 'rel="preload" as="style"' : 'rel="modulepreload"';
+      document.write('<link ' + kind + ' crossorigin href="/' + file + '">');
+    });
+  }
   get('/api/auth/me');
   var id = '[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}';
   var cellar = new RegExp('^/c/(' + id + ')(/|$)').exec(location.pathname);
   if (!cellar) return;
   get('/api/cellars/' + cellar[1] + '/settings');
+  preload('layout');
   var record = new RegExp('^/c/' + id + '/(vessels|batches)/(' + id + ')/?$').exec(location.pathname);
-  if (record) get('/api/cellars/' + cellar[1] + '/' + record[1] + '/' + record[2]);
+  if (record) {
+    get('/api/cellars/' + cellar[1] + '/' + record[1] + '/' + record[2]);
+    preload(record[1] === 'vessels' ? 'vessel' : 'batch');
+  } else if (/^\\/c\\/[^/]+\\/today\\/?$/.test(location.pathname)) {
+    preload('today');
+  }
 })();`;

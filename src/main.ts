@@ -17,6 +17,9 @@ import { routeTo } from './router/locations';
 import { useSessionStore } from './stores/session';
 import { brandColours } from './theme';
 
+// When the app's own code starts: what index.html's early requests are measured against (tests/e2e/scan.test.ts).
+performance.mark('cellarwright:app-start');
+
 const app = createApp(App);
 const pinia = createPinia();
 app.use(pinia);

@@ -81,7 +81,15 @@ export const routes: NamedRoute[] = [
       { path: 'batches/:batchId', name: 'batch', component: () => import('@/pages/BatchPage.vue'), meta: { title: 'Batch' } },
       { path: 'batches/:batchId/family', name: 'batch-family', component: () => import('@/pages/BatchFamilyPage.vue'), meta: { title: 'Compare' } },
       { path: 'vessels', name: 'vessels', component: () => import('@/pages/VesselsPage.vue'), meta: { title: 'Vessels' } },
-      { path: 'vessels/:vesselId', name: 'vessel', component: () => import('@/pages/VesselPage.vue'), meta: { title: 'Vessel' } },
+      {
+        path: 'vessels/:vesselId',
+        name: 'vessel',
+        component: () => import('@/pages/VesselPage.vue'),
+        meta: { title: 'Vessel' },
+        // The record with the page's code, so the page's first paint shows it (a scanned label's path).
+        beforeEnter: async (to) =>
+          (await import('@/components/vessels/vessel-prefetch')).prefetchVessel(String(to.params.cellarId), String(to.params.vesselId)),
+      },
       { path: 'bottles', name: 'bottles', component: () => import('@/pages/BottlesPage.vue'), meta: { title: 'Bottles' } },
       { path: 'map', name: 'cellar-map', component: () => import('@/pages/CellarMapPage.vue'), meta: { title: 'Cellar map' } },
       { path: 'labels', name: 'labels', component: () => import('@/pages/LabelsPage.vue'), meta: { title: 'Labels' } },
@@ -93,7 +101,12 @@ export const routes: NamedRoute[] = [
     ],
   },
   // Where label URLs (/s/:code, served by the API) lead when they open nothing, or a public bottle card.
-  { path: '/no-such-label', name: 'no-such-label', component: () => import('@/pages/NoSuchLabelPage.vue'), meta: { public: true, title: 'No such label' } },
+  {
+    path: '/no-such-label',
+    name: 'no-such-label',
+    component: () => import('@/pages/NoSuchLabelPage.vue'),
+    meta: { public: true, title: 'No such label' },
+  },
   {
     // A printed label URL reached inside the app (e.g. after signing in with ?next=/s/…): the server decides.
     path: '/s/:code',

@@ -1,21 +1,11 @@
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import type { DataSource } from 'typeorm';
 import { createDataSource } from '../../server/db/data-source';
 import { recreateDatabase } from '../../server/db/ensure-database';
 import { startLocalPostgres } from '../../server/db/local-postgres';
-
-/** A free loopback port, asked of the operating system. */
-export function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = net.createServer().listen(0, '127.0.0.1', () => {
-      const p = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(p));
-    });
-  });
-}
+import { freePort } from '../helpers/app-process';
 
 /**
  * Runs a benchmark against a throwaway PostgreSQL cluster in a temporary folder, with every

@@ -1,6 +1,6 @@
 /**
  * Browser benchmark on the large cellar (tests/bench/large-cellar.ts), in Debian's Chromium
- * against the built client (dist/, or CLIENT_DIR) served by the real app on a loopback port:
+ * against the built client (dist/) served by the real app, in its own process, on a loopback port:
  *
  * - Today's first load with an empty cache: the JavaScript bytes on the wire (compressed as
  *   sent), target ≤ 150 kB;
@@ -12,42 +12,34 @@
  */
 import 'reflect-metadata';
 import fs from 'node:fs';
-import type { Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { chromium, type Browser, type BrowserContext } from 'playwright-core';
-import { createApp, SESSION_COOKIE } from '../../server/app';
+import { SESSION_COOKIE } from '../../server/app';
+import { freePort, startAppProcess } from '../helpers/app-process';
 import { CHROMIUM_ARGS, CHROMIUM_PATH, chromiumAvailable } from '../tools/browser';
 import { withBenchDatabase } from './bench-database';
 import { BENCH_EMAIL, BENCH_PASSWORD, seedLargeCellar } from './large-cellar';
 
-const RUNS = Number(process.env.BENCH_SCAN_RUNS ?? 10);
+const RUNS = Number(process.env.BENCH_SCAN_RUNS ?? 20);
 const WARM_TARGET_MS = 400;
 const COLD_TARGET_MS = 1200;
 const TODAY_JS_TARGET_KB = 150;
 
-const clientDir = path.resolve(process.env.CLIENT_DIR ?? path.join(import.meta.dirname, '../../dist'));
+// The app serves the client built in dist/.
+const clientDir = path.resolve(import.meta.dirname, '../../dist');
 if (!fs.existsSync(path.join(clientDir, 'index.html'))) throw new Error(`No built client in ${clientDir}: run \`npx vite build\` first.`);
 if (!chromiumAvailable()) throw new Error(`No Chromium at ${CHROMIUM_PATH}.`);
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 
-await withBenchDatabase(async ({ ds }) => {
+await withBenchDatabase(async ({ ds, dir }) => {
   const cellar = await seedLargeCellar(ds);
-  // Every run opens a label; one loopback address stands for many phones here.
-  const app = createApp({
-    dataSource: ds,
-    sessionSecret: 'bench-secret-long-enough-0123456789abcdef',
-    cookieSecure: false,
-    clientDir,
-    scanLookupsPerMinute: 1_000_000,
-  });
-  const server = await new Promise<Server>((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
-  });
-  const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  // The app in a process of its own, as `npm start` runs it: the browser driver's event loop
+  // (every request of every page reported to it) is not the server's.
+  const app = await startAppProcess({ databaseUrl: (ds.options as { url: string }).url, port: await freePort(), dataDir: path.join(dir, 'app') });
+  const base = app.baseUrl;
   const signIn = await fetch(`${base}/api/auth/sign-in`, {
     method: 'POST',
     headers: { 'content-type': 'application/json' },
@@ -74,8 +66,34 @@ await withBenchDatabase(async ({ ds }) => {
     await context.addCookies([{ name: SESSION_COOKIE, value: sid, domain: '127.0.0.1', path: '/', httpOnly: true, sameSite: 'Lax' }]);
     return context;
   };
-  /** Opens the label URL and waits for the vessel's name: milliseconds from navigation. */
-  const openLabel = async (context: BrowserContext): Promise<number> => {
+  /**
+   * Waits until a new page of the context is controlled by an activated service worker (whose
+   * install, the precache, has then finished). Says what it found; blocked workers are none.
+   */
+  const untilServiceWorkerControls = async (context: BrowserContext): Promise<string> => {
+    if (process.env.BENCH_SCAN_NO_SW) return 'blocked';
+    const page = await context.newPage();
+    await page.goto(`${base}/c/${cellar.cellarId}/today`);
+    const state = await page.evaluate(async () => {
+      const registration = await navigator.serviceWorker.ready;
+      return registration.active?.state ?? 'none';
+    });
+    await page.close();
+    const check = await context.newPage();
+    await check.goto(`${base}/c/${cellar.cellarId}/today`);
+    const controlled = await check.evaluate(() => navigator.serviceWorker.controller !== null);
+    await check.close();
+    return controlled ? `active (${state}), controlling` : `not controlling (${state})`;
+  };
+
+  /**
+   * Opens the label URL and answers the milliseconds from the start of that navigation (the
+   * page's time origin, before the /s/ redirect) to the first animation frame in which the
+   * vessel's name is on screen, read in the page. Playwright's own waitFor checks at growing
+   * intervals (20, 50, 100, 100, then every 500 ms), so timing with it measured its schedule
+   * more than the page: it is used only for the wall time printed beside, as a cross-check.
+   */
+  const openLabel = async (context: BrowserContext): Promise<{ shownMs: number; wallMs: number }> => {
     const page = await context.newPage();
     const start = performance.now();
     // BENCH_SCAN_TRACE=1 prints when each request of the run finished (where the time goes).
@@ -85,11 +103,26 @@ await withBenchDatabase(async ({ ds }) => {
       page.on('requestfinished', (r) => console.log(`  ${at()} ms  ← ${r.method()} ${r.url().slice(base.length)}`));
     }
     await page.goto(`${base}/s/${cellar.code}`, { waitUntil: 'commit' });
-    await page.locator('[data-test=vessel-title]').waitFor({ state: 'visible' });
-    const ms = performance.now() - start;
+    const shown = await page.waitForFunction(
+      () => {
+        const title = document.querySelector('[data-test=vessel-title]');
+        const box = title?.getBoundingClientRect();
+        return title?.textContent?.trim() && box && box.width > 0 && box.height > 0 ? performance.now() : false;
+      },
+      undefined,
+      { polling: 'raf', timeout: 30_000 },
+    );
+    const shownMs = Number(await shown.jsonValue());
+    const wallMs = performance.now() - start;
+    // In the page: the browser's Navigation Timing (Node's typings know only their own performance).
+    const redirected = await page.evaluate(
+      () =>
+        (performance as unknown as { getEntriesByType(type: string): { redirectCount: number }[] }).getEntriesByType('navigation')[0]!.redirectCount,
+    );
+    if (redirected !== 1) throw new Error(`expected the label's one redirect inside the measured navigation, saw ${redirected}`);
     if (!page.url().includes(`/vessels/${cellar.vesselId}`)) throw new Error(`label opened ${page.url()}`);
     await page.close();
-    return ms;
+    return { shownMs, wallMs };
   };
 
   try {
@@ -112,12 +145,15 @@ await withBenchDatabase(async ({ ds }) => {
 
     const warmContext = await signedInContext();
     await openLabel(warmContext); // fills the cache (and lets the service worker install)
+    // Warm is a returning phone: the installed app's service worker active and its precache
+    // complete, not still downloading the client in the background while the runs are timed.
+    const serviceWorker = await untilServiceWorkerControls(warmContext);
     await openLabel(warmContext);
-    const warm: number[] = [];
+    const warm: { shownMs: number; wallMs: number }[] = [];
     for (let i = 0; i < RUNS; i++) warm.push(await openLabel(warmContext));
     await warmContext.close();
 
-    const cold: number[] = [];
+    const cold: { shownMs: number; wallMs: number }[] = [];
     for (let i = 0; i < RUNS; i++) {
       const context = await signedInContext();
       cold.push(await openLabel(context));
@@ -133,19 +169,17 @@ await withBenchDatabase(async ({ ds }) => {
     );
     for (const s of [...scripts].sort((a, b) => b.bytes - a.bytes).slice(0, 5))
       console.log(`  ${(s.bytes / 1024).toFixed(1).padStart(6)} kB  ${s.url.slice(base.length)}`);
-    const warmMs = median(warm);
-    const coldMs = median(cold);
+    const warmMs = median(warm.map((r) => r.shownMs));
+    const coldMs = median(cold.map((r) => r.shownMs));
+    const wall = (runs: { wallMs: number }[]) => `wall time with Playwright's polling ${median(runs.map((r) => r.wallMs)).toFixed(0)} ms`;
     console.log(
-      `Label URL to vessel shown, warm (${RUNS} runs, one context):   median ${warmMs.toFixed(0)} ms — target ≤ ${WARM_TARGET_MS} ms: ${warmMs <= WARM_TARGET_MS ? 'OK' : 'MISS'}`,
+      `Label URL to vessel shown, warm (${RUNS} runs, one context, service worker ${serviceWorker}):   median ${warmMs.toFixed(0)} ms (${wall(warm)}) — target ≤ ${WARM_TARGET_MS} ms: ${warmMs <= WARM_TARGET_MS ? 'OK' : 'MISS'}`,
     );
     console.log(
-      `Label URL to vessel shown, cold (${RUNS} runs, new context each): median ${coldMs.toFixed(0)} ms — target ≤ ${COLD_TARGET_MS} ms: ${coldMs <= COLD_TARGET_MS ? 'OK' : 'MISS'}`,
+      `Label URL to vessel shown, cold (${RUNS} runs, new context each): median ${coldMs.toFixed(0)} ms (${wall(cold)}) — target ≤ ${COLD_TARGET_MS} ms: ${coldMs <= COLD_TARGET_MS ? 'OK' : 'MISS'}`,
     );
   } finally {
     await browser.close();
-    await new Promise((r) => {
-      server.close(r);
-      server.closeIdleConnections();
-    });
+    await app.kill('SIGTERM');
   }
 });

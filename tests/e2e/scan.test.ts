@@ -60,7 +60,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     await page.waitForURL(vesselPage(carboy));
   });
 
-  it('opens a label URL signed in with the session and the record each asked for once, before the page code loads', async () => {
+  it('opens a label URL signed in with the session and the record each asked for once, and the page code, before the app code runs', async () => {
     const { baseUrl } = env();
     const page = await freshPage();
     await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
@@ -79,10 +79,21 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     expect(refused).toEqual([]);
     expect(asked.filter((p) => p === '/api/auth/me')).toHaveLength(1);
     expect(asked.filter((p) => p === record)).toHaveLength(1);
-    // index.html's inline script asked for it: before the layout's code was even requested.
-    const layoutAt = asked.findIndex((p) => /\/assets\/MainLayout-[^/]+\.js$/.test(p));
-    expect(layoutAt).toBeGreaterThan(-1);
-    expect(asked.indexOf(record)).toBeLessThan(layoutAt);
+    // index.html's inline script asked for the record and the layout's and page's code while the
+    // document was parsed: before the app's own code started (src/main.ts marks it), by Resource Timing.
+    const started = await page.evaluate(() => {
+      const entries = performance.getEntriesByType('resource') as PerformanceResourceTiming[];
+      const find = (pattern: RegExp) => entries.find((e) => pattern.test(new URL(e.name).pathname))?.startTime;
+      return {
+        appStart: performance.getEntriesByName('cellarwright:app-start')[0]?.startTime,
+        record: find(/^\/api\/cellars\/[^/]+\/vessels\/[^/]+$/),
+        layoutCode: find(/^\/assets\/MainLayout-[^/]+\.js$/),
+        pageCode: find(/^\/assets\/VesselPage-[^/]+\.js$/),
+      };
+    });
+    expect(started.appStart, JSON.stringify(started)).toBeGreaterThan(0);
+    for (const early of [started.record, started.layoutCode, started.pageCode])
+      expect(early, JSON.stringify(started)).toBeLessThan(started.appStart!);
   });
 
   it('opens the record from a typed code on the Scan page', async () => {
