@@ -1,3 +1,4 @@
+import type { Pool } from 'pg';
 import type { EntityManager } from 'typeorm';
 import type { BottleCard, ScanResult } from '../../shared/schemas/scan';
 import { labelCodeSchema } from '../../shared/schemas/vessels';
@@ -27,16 +28,22 @@ interface CodeTarget {
  * visitor belongs to that cellar — one statement; null if no such code.
  */
 async function findCode(tx: EntityManager, code: string, userId: string | undefined): Promise<CodeTarget | null> {
-  const [row] = await tx.query(
-    `SELECT t.kind, t.id, t.cellar_id AS "cellarId", t.lot_id AS "lotId", c.public_bottle_cards AS "publicCards",
+  const text = `SELECT t.kind, t.id, t.cellar_id AS "cellarId", t.lot_id AS "lotId", c.public_bottle_cards AS "publicCards",
             EXISTS (SELECT 1 FROM memberships m WHERE m.cellar_id = t.cellar_id AND m.user_id = $2) AS member
        FROM (SELECT 'vessel' AS kind, id, cellar_id, NULL::uuid AS lot_id FROM vessels WHERE code = $1
              UNION ALL SELECT 'lot', id, cellar_id, id FROM bottle_lots WHERE code = $1
              UNION ALL SELECT 'case', id, cellar_id, lot_id FROM bottle_cases WHERE code = $1) t
        JOIN cellars c ON c.id = t.cellar_id
-      LIMIT 1`,
-    [code, userId ?? null],
-  );
+      LIMIT 1`;
+  const values = [code, userId ?? null];
+  // Outside a transaction (every scan), as a named statement on the pool: each connection plans
+  // it once, as it does the session read that comes before it (server/http/session-store.ts).
+  if (!tx.queryRunner) {
+    const pool = (tx.connection.driver as unknown as { master: Pool }).master;
+    const { rows } = await pool.query<CodeTarget>({ name: 'cellarwright-code-lookup', text, values });
+    return rows[0] ?? null;
+  }
+  const [row] = await tx.query(text, values);
   return row ?? null;
 }
 
