@@ -21,15 +21,21 @@ function confirmer(onChain: (chain: DialogChainObject) => void) {
 const dialogButton = (label: string) =>
   [...document.querySelectorAll<HTMLButtonElement>('.q-dialog button')].find((b) => b.textContent?.trim() === label);
 
+/** Mounts a page that asks once, with onOk and onCancel chained at once (before the dialog's code has arrived). */
+async function askWithChain() {
+  const ok = vi.fn();
+  const cancel = vi.fn();
+  const { wrapper } = await mountInApp(
+    confirmer((chain) => chain.onOk(ok).onCancel(cancel)),
+    '/sign-in',
+  );
+  await wrapper.get('[data-test=ask]').trigger('click');
+  return { ok, cancel, wrapper };
+}
+
 describe('$q.dialog loaded on first use', () => {
   it('opens Quasar’s dialog once its code has arrived, and runs onOk chained before that, once', async () => {
-    const ok = vi.fn();
-    const cancel = vi.fn();
-    const { wrapper } = await mountInApp(
-      confirmer((chain) => chain.onOk(ok).onCancel(cancel)),
-      '/sign-in',
-    );
-    await wrapper.get('[data-test=ask]').trigger('click');
+    const { ok, cancel, wrapper } = await askWithChain();
     await vi.waitFor(() => expect(document.querySelector('.q-dialog')?.textContent).toContain('This cannot be undone.'));
     dialogButton('OK')!.click();
     await flushPromises();
@@ -39,13 +45,7 @@ describe('$q.dialog loaded on first use', () => {
   });
 
   it('runs onCancel, not onOk, for Cancel', async () => {
-    const ok = vi.fn();
-    const cancel = vi.fn();
-    const { wrapper } = await mountInApp(
-      confirmer((chain) => chain.onOk(ok).onCancel(cancel)),
-      '/sign-in',
-    );
-    await wrapper.get('[data-test=ask]').trigger('click');
+    const { ok, cancel, wrapper } = await askWithChain();
     await vi.waitFor(() => expect(dialogButton('Cancel')).toBeTruthy());
     dialogButton('Cancel')!.click();
     await vi.waitFor(() => expect(cancel).toHaveBeenCalledTimes(1));
