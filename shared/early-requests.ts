@@ -6,11 +6,14 @@
  *   `src/api/early-requests.ts` hands to the first `request()` for the same URL;
  * - preloads of the layout's and the page's code, listed at build time in the JSON block
  *   `#page-files` (pwa/first-load.ts) — a data block, which runs nothing.
+ * - for a vessel, its first glance once the record is back (shared/first-glance-script.ts).
  * A scanned label (→ the Vessel page) is the case it is for.
  *
  * Plain ES5 in a string: it runs before any module. The server allows the inline scripts of the
  * index.html it serves by their hashes (server/http/inline-script-hashes.ts).
  */
+import { FIRST_GLANCE_FUNCTION } from './first-glance-script';
+
 export const EARLY_REQUESTS_GLOBAL = '__cellarwrightEarly';
 
 /** The id of the JSON block listing each page's files: { layout: [...], vessel: [...], … }. */
@@ -28,11 +31,15 @@ export const EARLY_REQUESTS_SCRIPT = `(function () {
   try { files = listed ? JSON.parse(listed.textContent) : {}; } catch (e) {}
   // Written into the document while it is parsed, so the parser fetches them at once (links
   // appended from script start only after the entry module has run). Names come from the build.
+  // One write for all of them: each write re-enters the parser, a few hundred microseconds apiece.
+  var links = [];
+  var listedOnce = {};
   function preload(page) {
     (files[page] || []).forEach(function (file) {
-      if (!/^assets\\/[\\w.-]+$/.test(file)) return;
+      if (listedOnce[file] || !/^assets\\/[\\w.-]+$/.test(file)) return;
+      listedOnce[file] = true;
       var kind = /\\.css$/.test(file) ? 'rel="preload" as="style"' : 'rel="modulepreload"';
-      document.write('<link ' + kind + ' crossorigin href="/' + file + '">');
+      links.push('<link ' + kind + ' crossorigin href="/' + file + '">');
     });
   }
   get('/api/auth/me');
@@ -43,9 +50,14 @@ export const EARLY_REQUESTS_SCRIPT = `(function () {
   preload('layout');
   var record = new RegExp('^/c/' + id + '/(vessels|batches)/(' + id + ')/?$').exec(location.pathname);
   if (record) {
-    get('/api/cellars/' + cellar[1] + '/' + record[1] + '/' + record[2]);
+    var recordUrl = '/api/cellars/' + cellar[1] + '/' + record[1] + '/' + record[2];
+    get(recordUrl);
     preload(record[1] === 'vessels' ? 'vessel' : 'batch');
+    // A vessel is what a scanned label opens: its name and contents as soon as they are here.
+    if (record[1] === 'vessels') showFirstGlance(early[recordUrl]);
   } else if (/^\\/c\\/[^/]+\\/today\\/?$/.test(location.pathname)) {
     preload('today');
   }
+  if (links.length) document.write(links.join(''));
+  ${FIRST_GLANCE_FUNCTION}
 })();`;

@@ -10,9 +10,11 @@ import 'quasar/dist/quasar.css';
 import './css/app.css';
 import App from './App.vue';
 import { setUnauthorizedHandler } from './api/http';
+import { afterNextPaint } from './composables/after-next-paint';
 import { startOffline } from './offline/start-offline';
 import { lazyDialog } from './plugins/lazy-dialog';
 import { createAppRouter } from './router';
+import { removeFirstGlance } from './router/first-glance';
 import { routeTo } from './router/locations';
 import { useSessionStore } from './stores/session';
 import { brandColours } from './theme';
@@ -40,7 +42,14 @@ setUnauthorizedHandler(() => {
   if (here.matched.length > 0 && !here.meta.public) void router.push(routeTo('sign-in', {}, { next: here.fullPath }));
 });
 
-// Offline: the service worker, the queue of writes made without signal (src/offline/).
-startOffline(pinia);
+// Once the first page has painted: a scanned label's first glance goes (it was drawn over the
+// empty page by index.html's script), and the offline set-up starts — the queue of writes made
+// without signal (IndexedDB) and the service worker's registration (src/offline/).
+const firstPageShown = router
+  .isReady()
+  .catch(() => undefined)
+  .then(afterNextPaint);
+void firstPageShown.then(removeFirstGlance);
+startOffline(pinia, firstPageShown);
 
 app.mount('#app');

@@ -4,14 +4,19 @@
  *
  * - Today's first load with an empty cache: the JavaScript bytes on the wire (compressed as
  *   sent), target ≤ 150 kB;
- * - a vessel's printed label URL (/s/:code) opened signed in, until the vessel's name shows:
- *   the median of runs in one warm browser context (target ≤ 400 ms) and of runs each in a
- *   new context with an empty cache (target ≤ 1,200 ms).
+ * - a vessel's printed label URL (/s/:code) opened signed in, until the record is on screen —
+ *   the vessel's name, in its first glance (shared/first-glance-script.ts) or on the app's page,
+ *   whichever paints first: the median of runs in one warm browser context (target ≤ 400 ms) and
+ *   of runs each in a new context with an empty cache (target ≤ 1,200 ms); beside it, when the
+ *   app's whole page was on screen (the glance gone), which has no target of its own;
+ * - the floor: a static page with one heading, behind the same kind of redirect, from a bare
+ *   Node server in the same browser — what a new page load costs here before any app.
  *
  * A script, not a test: `npx vite build && npm run bench:scan`.
  */
 import 'reflect-metadata';
 import fs from 'node:fs';
+import http from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -89,11 +94,13 @@ await withBenchDatabase(async ({ ds, dir }) => {
   /**
    * Opens the label URL and answers the milliseconds from the start of that navigation (the
    * page's time origin, before the /s/ redirect) to the first animation frame in which the
-   * vessel's name is on screen, read in the page. Playwright's own waitFor checks at growing
-   * intervals (20, 50, 100, 100, then every 500 ms), so timing with it measured its schedule
-   * more than the page: it is used only for the wall time printed beside, as a cross-check.
+   * vessel's name is on screen (`recordMs`: the first glance's or the page's) and to the first
+   * in which the app's page shows it with the glance gone (`pageMs`), read in the page.
+   * Playwright's own waitFor checks at growing intervals (20, 50, 100, 100, then every 500 ms),
+   * so timing with it measured its schedule more than the page: it is used only for the wall
+   * time printed beside, as a cross-check.
    */
-  const openLabel = async (context: BrowserContext): Promise<{ shownMs: number; wallMs: number }> => {
+  const openLabel = async (context: BrowserContext): Promise<{ recordMs: number; pageMs: number; wallMs: number }> => {
     const page = await context.newPage();
     const start = performance.now();
     // BENCH_SCAN_TRACE=1 prints when each request of the run finished (where the time goes).
@@ -105,14 +112,22 @@ await withBenchDatabase(async ({ ds, dir }) => {
     await page.goto(`${base}/s/${cellar.code}`, { waitUntil: 'commit' });
     const shown = await page.waitForFunction(
       () => {
-        const title = document.querySelector('[data-test=vessel-title]');
-        const box = title?.getBoundingClientRect();
-        return title?.textContent?.trim() && box && box.width > 0 && box.height > 0 ? performance.now() : false;
+        // One name on screen per selector (no named helpers: the function runs in the page as written).
+        const [glance, title] = ['[data-test=glance-title]', '[data-test=vessel-title]'].map((selector) => {
+          const heading = document.querySelector(selector);
+          const box = heading?.getBoundingClientRect();
+          return Boolean(heading?.textContent?.trim() && box && box.width > 0 && box.height > 0);
+        });
+        const seen = window as unknown as { benchRecordAt?: number; benchPageAt?: number };
+        const now = performance.now();
+        if (seen.benchRecordAt === undefined && (glance || title)) seen.benchRecordAt = now;
+        if (seen.benchPageAt === undefined && title && !document.getElementById('first-glance')) seen.benchPageAt = now;
+        return seen.benchPageAt !== undefined ? [seen.benchRecordAt ?? now, seen.benchPageAt] : false;
       },
       undefined,
       { polling: 'raf', timeout: 30_000 },
     );
-    const shownMs = Number(await shown.jsonValue());
+    const [recordMs, pageMs] = (await shown.jsonValue()) as [number, number];
     const wallMs = performance.now() - start;
     // In the page: the browser's Navigation Timing (Node's typings know only their own performance).
     const redirected = await page.evaluate(
@@ -122,7 +137,44 @@ await withBenchDatabase(async ({ ds, dir }) => {
     if (redirected !== 1) throw new Error(`expected the label's one redirect inside the measured navigation, saw ${redirected}`);
     if (!page.url().includes(`/vessels/${cellar.vesselId}`)) throw new Error(`label opened ${page.url()}`);
     await page.close();
-    return { shownMs, wallMs };
+    return { recordMs, pageMs, wallMs };
+  };
+
+  /** The floor: a static page with one heading, behind a redirect, from a bare Node server (new context, warm). */
+  const staticFloorMs = async (): Promise<number> => {
+    const floorServer = http.createServer((req, res) => {
+      if (req.url === '/s/floor') res.writeHead(302, { location: '/floor', 'cache-control': 'no-store' }).end();
+      else
+        res
+          .writeHead(200, { 'content-type': 'text/html' })
+          .end(
+            '<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Floor</title></head><body><h1 data-test="vessel-title">Jug 4</h1></body></html>',
+          );
+    });
+    const port = await freePort();
+    await new Promise<void>((resolve) => floorServer.listen(port, '127.0.0.1', resolve));
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const times: number[] = [];
+    try {
+      for (let i = 0; i < RUNS + 1; i++) {
+        const page = await context.newPage();
+        await page.goto(`http://127.0.0.1:${port}/s/floor`, { waitUntil: 'commit' });
+        const shown = await page.waitForFunction(
+          () => {
+            const box = document.querySelector('[data-test=vessel-title]')?.getBoundingClientRect();
+            return box && box.width > 0 ? performance.now() : false;
+          },
+          undefined,
+          { polling: 'raf', timeout: 30_000 },
+        );
+        if (i > 0) times.push(Number(await shown.jsonValue())); // the first fills the cache
+        await page.close();
+      }
+    } finally {
+      await context.close();
+      floorServer.close();
+    }
+    return median(times);
   };
 
   try {
@@ -149,11 +201,12 @@ await withBenchDatabase(async ({ ds, dir }) => {
     // complete, not still downloading the client in the background while the runs are timed.
     const serviceWorker = await untilServiceWorkerControls(warmContext);
     await openLabel(warmContext);
-    const warm: { shownMs: number; wallMs: number }[] = [];
+    type Run = Awaited<ReturnType<typeof openLabel>>;
+    const warm: Run[] = [];
     for (let i = 0; i < RUNS; i++) warm.push(await openLabel(warmContext));
     await warmContext.close();
 
-    const cold: { shownMs: number; wallMs: number }[] = [];
+    const cold: Run[] = [];
     for (let i = 0; i < RUNS; i++) {
       const context = await signedInContext();
       cold.push(await openLabel(context));
@@ -169,15 +222,20 @@ await withBenchDatabase(async ({ ds, dir }) => {
     );
     for (const s of [...scripts].sort((a, b) => b.bytes - a.bytes).slice(0, 5))
       console.log(`  ${(s.bytes / 1024).toFixed(1).padStart(6)} kB  ${s.url.slice(base.length)}`);
-    const warmMs = median(warm.map((r) => r.shownMs));
-    const coldMs = median(cold.map((r) => r.shownMs));
-    const wall = (runs: { wallMs: number }[]) => `wall time with Playwright's polling ${median(runs.map((r) => r.wallMs)).toFixed(0)} ms`;
-    console.log(
-      `Label URL to vessel shown, warm (${RUNS} runs, one context, service worker ${serviceWorker}):   median ${warmMs.toFixed(0)} ms (${wall(warm)}) — target ≤ ${WARM_TARGET_MS} ms: ${warmMs <= WARM_TARGET_MS ? 'OK' : 'MISS'}`,
-    );
-    console.log(
-      `Label URL to vessel shown, cold (${RUNS} runs, new context each): median ${coldMs.toFixed(0)} ms (${wall(cold)}) — target ≤ ${COLD_TARGET_MS} ms: ${coldMs <= COLD_TARGET_MS ? 'OK' : 'MISS'}`,
-    );
+    const floorMs = await staticFloorMs();
+    const report = (label: string, runs: Run[], target: number) => {
+      const recordMs = median(runs.map((r) => r.recordMs));
+      const pageMs = median(runs.map((r) => r.pageMs));
+      const wallMs = median(runs.map((r) => r.wallMs));
+      console.log(
+        `Label URL to record on screen, ${label}: median ${recordMs.toFixed(0)} ms — target ≤ ${target} ms: ${recordMs <= target ? 'OK' : 'MISS'}; ` +
+          `the app's whole page ${pageMs.toFixed(0)} ms (wall time with Playwright's polling ${wallMs.toFixed(0)} ms)`,
+      );
+    };
+    report(`warm (${RUNS} runs, one context, service worker ${serviceWorker})`, warm, WARM_TARGET_MS);
+    report(`cold (${RUNS} runs, new context each)`, cold, COLD_TARGET_MS);
+    console.log(`Floor, a static page with one heading behind a redirect (${RUNS} runs, warm): median ${floorMs.toFixed(0)} ms`);
+    console.log("(the record on screen: the vessel's name, contents and place in its first glance, or on the page if that paints first)");
   } finally {
     await browser.close();
     await app.kill('SIGTERM');

@@ -1,5 +1,5 @@
 import { afterEach, beforeAll, expect, it } from 'vitest';
-import type { Page } from 'playwright-core';
+import type { Page, Route } from 'playwright-core';
 import QRCode from 'qrcode';
 import type { Vessel } from '../../server/entities/vessel.entity';
 import type { Shelf } from '../../server/entities/shelf.entity';
@@ -94,6 +94,45 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     expect(started.appStart, JSON.stringify(started)).toBeGreaterThan(0);
     for (const early of [started.record, started.layoutCode, started.pageCode])
       expect(early, JSON.stringify(started)).toBeLessThan(started.appStart!);
+  });
+
+  it("shows a scanned jug's name, contents and place before the app's code has run, as text, and takes them away once its page is painted", async () => {
+    const { baseUrl, ds } = env();
+    // A name that would be markup if the glance wrote HTML: it must show as the characters typed.
+    const batch = await makeBatch(ds, crew.cellar.id, { name: 'Sloe <b>Cyser</b>', kind: 'cyser', og: 1.09 });
+    const jug = await makeVessel(ds, crew.cellar.id, { name: 'Jug <i>Seven</i>', batch });
+    await placeDirectly(ds, crew.cellar.id, shelves[1]!.id, 1, { vesselId: jug.id });
+    const page = await freshPage();
+    await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
+    // The app's entry held back: only index.html's own script can draw anything.
+    const held: Route[] = [];
+    let released = false;
+    await page.route(/\/assets\/index-[^/]+\.js$/, (route) => (released ? route.continue() : void held.push(route)));
+    await page.goto(`${baseUrl}/s/${jug.code}`, { waitUntil: 'commit' });
+    const glance = page.locator('#first-glance');
+    await glance.waitFor({ state: 'visible' });
+    expect(await page.textContent('[data-test=glance-title]')).toBe('Jug <i>Seven</i>');
+    expect(await glance.locator('i, b').count()).toBe(0);
+    const words = await glance.innerText();
+    expect(words).toContain('Sloe <b>Cyser</b>');
+    expect(words).toContain('Scan rack · shelf 2 · slot 1');
+    expect(await page.locator('[data-test=vessel-title]').count()).toBe(0);
+
+    await expect.poll(() => held.length).toBeGreaterThan(0);
+    released = true;
+    for (const route of held) await route.continue();
+    await page.locator('[data-test=vessel-title]').waitFor({ state: 'visible' });
+    expect(await page.textContent('[data-test=vessel-title]')).toContain('Jug <i>Seven</i>');
+    await glance.waitFor({ state: 'detached' });
+  });
+
+  it('draws no glance when the record is not there to show: an unknown vessel leaves the page to say so', async () => {
+    const { baseUrl } = env();
+    const page = await freshPage();
+    await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
+    await page.goto(`${baseUrl}/c/${crew.cellar.id}/vessels/00000000-0000-4000-8000-000000000000`);
+    await page.locator('[data-test=vessel-error]').waitFor({ state: 'visible' });
+    expect(await page.locator('#first-glance').count()).toBe(0);
   });
 
   it('opens the record from a typed code on the Scan page', async () => {
