@@ -4,7 +4,7 @@
  * asked for early by index.html's script (shared/early-requests.ts), is usually back well before.
  * When it is, this draws what the person scanned the jug to learn — its name, what is in it and
  * where it stands — over the still-empty page, in plain DOM from the answer's text (never as
- * HTML). The app takes it away once its own page has painted (src/router/first-glance.ts).
+ * HTML). The app takes it away once its own page is rendered (src/router/first-glance.ts).
  * No volumes, dates or gravities: their units and style are the person's settings, which only
  * the app applies.
  *

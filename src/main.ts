@@ -1,4 +1,4 @@
-import { createApp } from 'vue';
+import { createApp, nextTick } from 'vue';
 import { createPinia } from 'pinia';
 import { Notify, Quasar } from 'quasar';
 import '@fontsource/work-sans/400.css';
@@ -42,14 +42,15 @@ setUnauthorizedHandler(() => {
   if (here.matched.length > 0 && !here.meta.public) void router.push(routeTo('sign-in', {}, { next: here.fullPath }));
 });
 
-// Once the first page has painted: a scanned label's first glance goes (it was drawn over the
-// empty page by index.html's script), and the offline set-up starts — the queue of writes made
-// without signal (IndexedDB) and the service worker's registration (src/offline/).
-const firstPageShown = router
+// Once the first page is rendered, a scanned label's first glance (drawn over the empty page by
+// index.html's script) goes: the browser's next paint shows the page in its place. Once that page
+// has painted, the offline set-up starts — the queue of writes made without signal (IndexedDB)
+// and the service worker's registration (src/offline/).
+const firstPageRendered = router
   .isReady()
   .catch(() => undefined)
-  .then(afterNextPaint);
-void firstPageShown.then(removeFirstGlance);
-startOffline(pinia, firstPageShown);
+  .then(() => nextTick());
+void firstPageRendered.then(removeFirstGlance);
+startOffline(pinia, firstPageRendered.then(afterNextPaint));
 
 app.mount('#app');
