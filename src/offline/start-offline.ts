@@ -9,7 +9,7 @@ import { useOutboxStore } from './outbox-store';
  * The API layer's hooks are set at once; reading the queue from IndexedDB and registering the
  * worker wait for `firstPageShown`, so they do not hold back the page a scanned label opens.
  */
-export function startOffline(pinia: Pinia, firstPageShown: Promise<unknown> = Promise.resolve()): void {
+export function startOffline(pinia: Pinia, firstPageShown: Promise<unknown>): void {
   const outbox = useOutboxStore(pinia);
   setOfflineHooks({ queue: (write) => outbox.keep(write), reached: (ok) => outbox.noteReached(ok) });
   void firstPageShown.then(() => {
