@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import type { EntityManager } from 'typeorm';
+import { JOURNAL_ARCHIVE_TABLE } from '../journal/journal-archive';
 import { newLabelCode } from '../labels/label-codes';
 import { photoEntry, tableEntry, type ArchivedPerson } from './archive-format';
 import type { OpenedArchive } from './archive-reader';
@@ -86,7 +87,7 @@ export async function restoreArchive(
     const rows = (tables.get(table.name) ?? []).map((row) => {
       let out = remap(row) as Row;
       // Tasting scores of archives written before our own scale move onto it, as the migration moved stored ones.
-      if (table.name === 'journal_entries' && scoresOutOfTwenty(archive.manifest.schema)) out = rescoredJournalRow(out);
+      if (table.name === JOURNAL_ARCHIVE_TABLE.name && scoresOutOfTwenty(archive.manifest.schema)) out = rescoredJournalRow(out);
       if ((LABEL_CODE_TABLES as readonly string[]).includes(table.name)) out.code = codes.get(String(row.code)) ?? row.code;
       if (table.name === 'photos') {
         for (const column of PHOTO_COLUMNS) out[column] = `\\x${archive.entries.get(photoEntry(String(row.id), column))!.toString('hex')}`;

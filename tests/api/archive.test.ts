@@ -157,6 +157,27 @@ describe('whole-cellar archive', () => {
     expect((await ds.query(`SELECT count(*)::int AS n FROM cellars`))[0].n).toBe(cellarsBefore);
   });
 
+  it('moves the tasting scores of an archive written before our own scale onto it, as the migration moved stored ones', async () => {
+    const [batch] = await ds.query(`SELECT id FROM batches WHERE cellar_id = $1 AND name = 'Archived melomel'`, [crew.cellar.id]);
+    const tasted = await crew.as.hand
+      .post(`/api/cellars/${crew.cellar.id}/batches/${batch.id}/tastings`)
+      .send({ aroma: 'Pear', score: 6, at: new Date().toISOString() });
+    expect(tasted.status).toBe(201);
+    const current = await openArchive([await download(crew.cellar.id)]);
+    // The same archive, said to be written by an installation before the TastingScoresOnOwnScale migration.
+    const manifest = JSON.parse(current.entries.get('manifest.json')!.toString('utf8'));
+    const older = await repack(current.entries, (name, bytes) =>
+      name === 'manifest.json' ? Buffer.from(JSON.stringify({ ...manifest, schema: 'CreateIdempotencyKeys1796170900000' })) : bytes,
+    );
+    const res = await restore(older);
+    expect(res.status).toBe(201);
+    const scores = await ds.query(`SELECT (payload->>'score')::int AS score FROM journal_entries WHERE cellar_id = $1 AND kind = 'tasted'`, [
+      res.body.cellarId,
+    ]);
+    // Read as 6 out of 20: 1 + round(6 × 7 / 20) = 1 + round(2.1) = 3 (the migration's mapping, worked by hand).
+    expect(scores).toEqual([{ score: 3 }]);
+  });
+
   it('is Keeper work', async () => {
     for (const agent of [crew.as.hand, crew.as.guest]) {
       expect((await agent.get(archivePath(crew.cellar.id))).status).toBe(403);
