@@ -48,8 +48,9 @@ export function pwaPlugins(): PluginOption[] {
         clientsClaim: true,
         cleanupOutdatedCaches: true,
         runtimeCaching,
-        // Hashed files straight from the precache, without the worker's script (public/sw-static-routes.js).
-        importScripts: ['sw-static-routes.js'],
+        // Hashed files straight from the precache, without the worker's script (public/sw-static-routes.js);
+        // a Vessel or Batch page's record asked for as the worker serves the page (public/sw-early-record.js).
+        importScripts: ['sw-static-routes.js', 'sw-early-record.js'],
       },
     }),
   ];

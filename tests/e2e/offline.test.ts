@@ -1,5 +1,5 @@
 import { beforeAll, expect, it } from 'vitest';
-import type { Page } from 'playwright-core';
+import type { Page, Request } from 'playwright-core';
 import { brandColours } from '../../src/theme';
 import { rackBatch } from '../../server/batches/racking.service';
 import { inTransaction } from '../../server/core/unit-of-work';
@@ -236,6 +236,51 @@ describeInBrowser(
       await expect.poll(async () => (await keptWrites(page)).length, { timeout: 15_000 }).toBe(0);
       const readings = await readingsOf(page, batchId);
       expect(readings.map((r) => r.sg)).toEqual([1.012]);
+      await page.close();
+    });
+
+    it("asks for a scanned vessel's record as the worker serves its page, once, and opens that page without signal from what it kept", async () => {
+      const { baseUrl, context } = env();
+      const { vesselId, code } = await batchInCarboy('Early pear cider');
+      const page = await signedInPage();
+      const recordUrl = `${baseUrl}/api/cellars/${crew.cellar.id}/vessels/${vesselId}`;
+      let asked: { by: 'worker' | 'page'; fromWorker: Promise<boolean> }[] = [];
+      const onRequest = (request: Request) => {
+        if (request.url() !== recordUrl) return;
+        const fromWorker = request.response().then((response) => response?.fromServiceWorker() ?? false);
+        asked.push({ by: request.serviceWorker() ? 'worker' : 'page', fromWorker });
+      };
+      context.on('request', onRequest);
+      try {
+        // With the page's scripts switched off, the record is still asked for: by the worker, as it serves the page.
+        const cdp = await context.newCDPSession(page);
+        await cdp.send('Emulation.setScriptExecutionDisabled', { value: true });
+        await page.goto(`${baseUrl}/s/${code}`);
+        await expect.poll(() => asked.map((a) => a.by)).toEqual(['worker']);
+        await cdp.send('Emulation.setScriptExecutionDisabled', { value: false });
+        await cdp.detach();
+
+        // With them on, the page's own request is answered by the worker with what it asked for:
+        // the server is asked once.
+        asked = [];
+        await page.goto(`${baseUrl}/s/${code}`);
+        await expect.poll(() => page.textContent('[data-test=vessel-title]')).toBe('Early pear cider carboy');
+        expect(asked.map((a) => a.by).sort()).toEqual(['page', 'worker']);
+        expect(await asked.find((a) => a.by === 'page')!.fromWorker).toBe(true);
+      } finally {
+        context.off('request', onRequest);
+      }
+      // ...and the worker kept it, as it keeps every record that passes through it.
+      await expect.poll(() => page.evaluate((url) => caches.match(url).then((r) => r?.status ?? null), recordUrl)).toBe(200);
+
+      // Without signal the worker's early request fails: the page shows the record it kept.
+      await context.setOffline(true);
+      try {
+        await page.goto(`${baseUrl}/c/${crew.cellar.id}/vessels/${vesselId}`);
+        await expect.poll(() => page.textContent('[data-test=vessel-title]')).toBe('Early pear cider carboy');
+      } finally {
+        await context.setOffline(false);
+      }
       await page.close();
     });
 
