@@ -24,6 +24,7 @@ import { renderLabelsPdf } from '../../server/labels/render';
 import { labelTemplates } from '../../server/labels/templates';
 import { withBenchDatabase } from './bench-database';
 import { BENCH_EMAIL, BENCH_PASSWORD, seedLargeCellar } from './large-cellar';
+import type { LoadRunOptions, LoadRunResult } from './load-run';
 
 const CONNECTIONS = 8;
 const WARM_SECONDS = 1;
@@ -34,7 +35,7 @@ const ROUNDS = 2;
 const TEMPLATE = 'a4-3x8-70x37';
 
 const execFileAsync = promisify(execFile);
-const autocannonCli = path.resolve(import.meta.dirname, '../../node_modules/autocannon/autocannon.js');
+const loadRunScript = path.resolve(import.meta.dirname, 'load-run.ts');
 
 /** One statement as the pg driver received it. */
 interface Statement {
@@ -83,18 +84,16 @@ interface Run {
 }
 
 /**
- * One autocannon run: for `seconds`, or until `amount` requests have finished (for endpoints that
- * take about a second each, which a short run would cut off with every request still in flight).
+ * One load run (tests/bench/load-run.ts, a process of its own): for `seconds`, or until `amount`
+ * requests have finished (for endpoints that take about a second each, which a short run would
+ * cut off with every request still in flight). Its p50 keeps fractions of a millisecond.
  */
 async function load(url: string, headers: Record<string, string>, length: { seconds: number } | { amount: number }): Promise<Run> {
-  const args = [autocannonCli, '-c', String(CONNECTIONS), '-t', '60', '-j'];
-  args.push(...('seconds' in length ? ['-d', String(length.seconds)] : ['-a', String(length.amount)]));
-  for (const [k, v] of Object.entries(headers)) args.push('-H', `${k}=${v}`);
-  args.push(url);
-  const { stdout } = await execFileAsync(process.execPath, args, { maxBuffer: 1 << 24 });
-  const r = JSON.parse(stdout) as { requests: { total: number }; duration: number; latency: { p50: number }; non2xx: number; errors: number };
+  const options: LoadRunOptions = { url, connections: CONNECTIONS, headers, ...length };
+  const { stdout } = await execFileAsync(process.execPath, ['--import', 'tsx', loadRunScript, JSON.stringify(options)], { maxBuffer: 1 << 24 });
+  const r = JSON.parse(stdout) as LoadRunResult;
   // Total over the run's real length: a slow endpoint finishes few requests per one-second sample.
-  return { rps: r.requests.total / r.duration, p50: r.latency.p50, bad: r.non2xx + r.errors };
+  return { rps: r.requests / r.durationS, p50: r.p50Ms, bad: r.bad };
 }
 
 const listen = (app: express.Express) =>
