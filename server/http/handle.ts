@@ -1,9 +1,9 @@
 import type { Request, RequestHandler, Response } from 'express';
 import type { DataSource, EntityManager } from 'typeorm';
 import { z, ZodError, type ZodType } from 'zod';
-import type { Actor } from '../core/actor';
+import { memberActor, type Actor, type MemberActor } from '../core/actor';
 import { inTransaction } from '../core/unit-of-work';
-import { actorFrom } from './actor-from-request';
+import { UnauthorizedError } from './errors';
 import { guardInput } from './input-guard';
 
 type Schemas = { params?: ZodType; query?: ZodType; body?: ZodType };
@@ -53,6 +53,12 @@ export function handle<S extends Schemas>(
 export const ROUTE_SCHEMAS = Symbol('routeSchemas');
 
 const READ_METHODS = new Set(['GET', 'HEAD']);
+
+/** The member and cellar that cellarAccess checked and put on the request, as the services' actor. */
+export function actorFrom(req: Request): MemberActor {
+  if (!req.user || !req.cellar) throw new UnauthorizedError();
+  return memberActor(req.cellar.id, req.user.id, req.cellar.role);
+}
 
 /**
  * `handle` for routes under a cellar: the request's actor and one transaction for the whole

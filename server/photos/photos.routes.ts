@@ -5,9 +5,8 @@ import { z } from 'zod';
 import { uuidSchema } from '../../shared/schemas/common';
 import { requireRole } from '../core/actor';
 import { inTransaction } from '../core/unit-of-work';
-import { actorFrom } from '../http/actor-from-request';
 import { AppError, BadRequestError, UnsupportedMediaError } from '../http/errors';
-import { cellarHandler, handle } from '../http/handle';
+import { actorFrom, cellarHandler, handle } from '../http/handle';
 import { checkPhoto, PHOTO_MAX_BYTES } from './photo-check';
 import { addPhoto, readPhoto, type PhotoSize } from './photo.service';
 
