@@ -8,6 +8,7 @@ import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/c
 import { makeRack, placeDirectly } from '../helpers/places';
 import { makeVessel } from '../helpers/vessels';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
+import { brandColours } from '../../src/theme';
 
 describeInBrowser('scanning labels, in Chromium', (env) => {
   let crew: CellarCrew;
@@ -117,6 +118,10 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     expect(words).toContain('Sloe <b>Cyser</b>');
     expect(words).toContain('Scan rack · shelf 2 · slot 1');
     expect(await page.locator('[data-test=vessel-title]').count()).toBe(0);
+    // Its header bar is drawn before the app sets its brand colours (src/css/app.css): the same colour.
+    const bar = await page.$eval('.first-glance__bar', (el) => getComputedStyle(el).backgroundColor);
+    const [r, g, b] = [1, 3, 5].map((i) => parseInt(brandColours.primary.slice(i, i + 2), 16));
+    expect(bar).toBe(`rgb(${r}, ${g}, ${b})`);
 
     await expect.poll(() => held.length).toBeGreaterThan(0);
     released = true;

@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { EARLY_REQUESTS_SCRIPT } from '../../shared/early-requests';
 
 /**
  * public/sw-early-record.js in a stand-in for the service worker's global scope: its `fetch`
@@ -109,5 +110,42 @@ describe('the service worker asks for a record page’s record as it serves the 
     vi.advanceTimersByTime(5_000);
     expect(await (await worker.fetch(vesselRecord)).text()).toBe('answer 2');
     expect(await (await worker.fetch(vesselRecord)).text()).toBe('answer 3');
+  });
+});
+
+/** The record URLs index.html's early script asks for on a page at `path` (run with stand-ins for the page). */
+function earlyScriptRecordUrls(path: string): string[] {
+  const asked: string[] = [];
+  const page = {
+    window: {},
+    document: { getElementById: () => null, write: () => undefined, body: null, addEventListener: () => undefined },
+    location: { pathname: path },
+    fetch: (url: string) => {
+      asked.push(url);
+      return Promise.resolve({ ok: false });
+    },
+  };
+  new Function('window', 'document', 'location', 'fetch', EARLY_REQUESTS_SCRIPT)(page.window, page.document, page.location, page.fetch);
+  return asked.filter((url) => /\/(vessels|batches)\//.test(url)).map((url) => `${ORIGIN}${url}`);
+}
+
+describe('the worker and the early script agree on which record a page asks for', () => {
+  it.each([
+    `/c/${CELLAR}/vessels/${VESSEL}`,
+    `/c/${CELLAR}/vessels/${VESSEL}/`,
+    `/c/${CELLAR}/batches/${BATCH}`,
+    `/c/${CELLAR}/vessels`,
+    `/c/${CELLAR}/today`,
+    `/c/${CELLAR}/vessels/${VESSEL}/photos`,
+    `/c/not-an-id/vessels/${VESSEL}`,
+  ])('%s', (path) => {
+    const worker = startWorker();
+    worker.navigate(path);
+    // Otherwise the worker's answer would wait unused, and the page would ask the server again.
+    expect(worker.network.mock.calls.map(([url]) => url)).toEqual(earlyScriptRecordUrls(path));
+  });
+
+  it('asks for a record on the record pages (the check above is not empty on both sides)', () => {
+    expect(earlyScriptRecordUrls(`/c/${CELLAR}/vessels/${VESSEL}`)).toEqual([vesselRecord]);
   });
 });
