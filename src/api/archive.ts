@@ -1,6 +1,5 @@
 import { z } from 'zod';
-import { errorFromAnswer, offlineError } from './http';
-import { cellarPath, withQuery } from './paths';
+import { errorFromAnswer, offlineError, cellarPath, withQuery } from './http';
 
 export const restoredCellarSchema = z.object({
   cellarId: z.uuid(),

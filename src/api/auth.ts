@@ -1,9 +1,7 @@
 import { sessionUserSchema, type SessionUser, type SignInRequest } from '@shared/schemas/auth';
-import { request } from './http';
-import { apiPath } from './paths';
+import { request, apiPath } from './http';
 
-export const signIn = (body: SignInRequest): Promise<SessionUser> =>
-  request('POST', apiPath('auth', 'sign-in'), sessionUserSchema, body);
+export const signIn = (body: SignInRequest): Promise<SessionUser> => request('POST', apiPath('auth', 'sign-in'), sessionUserSchema, body);
 
 export const signOut = (): Promise<void> => request('POST', apiPath('auth', 'sign-out'));
 

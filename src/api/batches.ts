@@ -17,8 +17,7 @@ import type {
 import { readingResultSchema } from '@shared/schemas/journal';
 import { rackTargetSuggestionSchema, type Vessel } from '@shared/schemas/vessels';
 import type { RackingStage } from '@shared/calc';
-import { request, requestOrQueue } from './http';
-import { cellarPath, withQuery } from './paths';
+import { request, requestOrQueue, cellarPath, withQuery } from './http';
 import { listVessels } from './vessels';
 
 export type BatchPage = z.infer<typeof batchPageSchema>;

@@ -1,7 +1,6 @@
 import { bottlingResultSchema, type BottlingResult } from '@shared/schemas/bottles';
 import type { BottleRequest } from '@shared/schemas/journal';
-import { ApiError, request } from './http';
-import { cellarPath } from './paths';
+import { ApiError, request, cellarPath } from './http';
 
 export { bottlingResultSchema, type BottlingResult };
 

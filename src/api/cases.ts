@@ -7,8 +7,7 @@ import {
   type DrawDownRequest,
 } from '@shared/schemas/bottles';
 import type { MoveRequest } from '@shared/schemas/places';
-import { request, requestOrQueue } from './http';
-import { cellarPath } from './paths';
+import { request, requestOrQueue, cellarPath } from './http';
 
 export { caseDetailSchema, type CaseDetail };
 

@@ -8,8 +8,7 @@ import {
   type DeviceSeries,
   type DeviceWithToken,
 } from '@shared/schemas/devices';
-import { request } from './http';
-import { cellarPath } from './paths';
+import { request, cellarPath } from './http';
 
 /** The cellar's digital hydrometers (Keepers). */
 export const listDevices = (cellarId: string): Promise<Device[]> => request('GET', cellarPath(cellarId, 'devices'), deviceListSchema);

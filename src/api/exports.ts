@@ -1,5 +1,5 @@
 import type { ExportTable } from '@shared/schemas/exchange';
-import { cellarPath, withQuery } from './paths';
+import { cellarPath, withQuery } from './http';
 
 /** How a CSV file is written: the units the person works in, and a byte-order mark for spreadsheets. */
 export interface ExportFormatChoice {

@@ -1,6 +1,5 @@
 import { batchFamilySchema, type BatchFamily } from '@shared/schemas/family';
-import { request } from './http';
-import { cellarPath } from './paths';
+import { request, cellarPath } from './http';
 
 /** A batch's family (parent, splits, blends) for the Compare view. */
 export const fetchBatchFamily = (cellarId: string, batchId: string): Promise<BatchFamily> =>

@@ -1,6 +1,5 @@
 import { importPreviewSchema, importResultSchema, type ImportPreview, type ImportResult, type ImportTarget } from '@shared/schemas/exchange';
-import { errorFromAnswer, offlineError } from './http';
-import { cellarPath, withQuery } from './paths';
+import { errorFromAnswer, offlineError, cellarPath, withQuery } from './http';
 
 /** How much of a file the preview sends: enough for the headers and first rows. */
 const PREVIEW_BYTES = 64 * 1024;

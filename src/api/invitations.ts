@@ -2,8 +2,7 @@ import { z } from 'zod';
 import { invitationPreviewSchema, invitationSchema, type Invitation, type InvitationPreview, type InvitationSignUp } from '@shared/schemas/accounts';
 import { sessionUserSchema, type SessionUser } from '@shared/schemas/auth';
 import type { Role } from '@shared/roles';
-import { request } from './http';
-import { apiPath, cellarPath } from './paths';
+import { request, apiPath, cellarPath } from './http';
 
 /** The Keeper's side: invite, list, resend, withdraw. */
 export const fetchInvitations = (cellarId: string): Promise<Invitation[]> =>

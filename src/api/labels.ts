@@ -11,8 +11,7 @@ import {
   type ShelfContents,
   type ShelfDirectory,
 } from '@shared/schemas/labels';
-import { ApiError, offlineError, request } from './http';
-import { cellarPath, withQuery } from './paths';
+import { ApiError, offlineError, request, cellarPath, withQuery } from './http';
 
 /** What to print, as the PDF endpoint takes it. */
 export interface LabelPrintRequest {

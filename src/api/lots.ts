@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { departureSchema, lotDetailSchema, lotPageSchema, type LotDetail, type LotPage } from '@shared/schemas/bottles';
-import { request } from './http';
-import { cellarPath, withQuery } from './paths';
+import { request, cellarPath, withQuery } from './http';
 
 export { lotDetailSchema, lotPageSchema, type LotDetail, type LotPage };
 export type Departure = z.infer<typeof departureSchema>;
@@ -17,9 +16,12 @@ export interface LotListFilters {
 export function listLots(cellarId: string, filters: LotListFilters = {}): Promise<LotPage> {
   const { q, inStock, page, pageSize } = filters;
   // A page or page size of 0 means "the server's default", like an empty one.
-  return request('GET', withQuery(cellarPath(cellarId, 'lots'), { q, inStock, page: page || undefined, pageSize: pageSize || undefined }), lotPageSchema);
+  return request(
+    'GET',
+    withQuery(cellarPath(cellarId, 'lots'), { q, inStock, page: page || undefined, pageSize: pageSize || undefined }),
+    lotPageSchema,
+  );
 }
 
 /** A lot, its cases and every bottle that has left it. */
-export const fetchLot = (cellarId: string, lotId: string): Promise<LotDetail> =>
-  request('GET', cellarPath(cellarId, 'lots', lotId), lotDetailSchema);
+export const fetchLot = (cellarId: string, lotId: string): Promise<LotDetail> => request('GET', cellarPath(cellarId, 'lots', lotId), lotDetailSchema);

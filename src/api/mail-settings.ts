@@ -1,6 +1,5 @@
 import { mailSettingsSchema, type MailSettings } from '@shared/schemas/mail-settings';
-import { request } from './http';
-import { cellarPath } from './paths';
+import { request, cellarPath } from './http';
 
 /** The signed-in member's own e-mail reminders in a cellar. */
 export const fetchMyMailSettings = (cellarId: string): Promise<MailSettings> =>

@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { mailStatusSchema, receivedMailSchema, type MailStatus, type ReceivedMailView } from '@shared/schemas/mail';
-import { request } from './http';
-import { cellarPath } from './paths';
+import { request, cellarPath } from './http';
 
 /** Keepers: whether mail goes to the local mailbox, and the cellar's mail that is stuck. */
 export const fetchMailStatus = (cellarId: string): Promise<MailStatus> => request('GET', cellarPath(cellarId, 'mail'), mailStatusSchema);

@@ -1,6 +1,5 @@
 import { passwordResetAnswerSchema, type PasswordResetComplete } from '@shared/schemas/accounts';
-import { request } from './http';
-import { apiPath } from './paths';
+import { request, apiPath } from './http';
 
 /** Always the same answer, whether or not the address has an account. */
 export const requestPasswordReset = (email: string): Promise<{ message: string }> =>

@@ -1,6 +1,5 @@
 import { photoUploadResultSchema, type PhotoUploadResult } from '@shared/schemas/photos';
-import { errorFromAnswer, offlineError } from './http';
-import { cellarPath } from './paths';
+import { errorFromAnswer, offlineError, cellarPath } from './http';
 
 export type { PhotoUploadResult };
 

@@ -1,6 +1,5 @@
 import { batchPlanSchema, planListSchema, planSchema, type BatchPlan, type Plan, type PlanWrite } from '@shared/schemas/plans';
-import { request } from './http';
-import { cellarPath } from './paths';
+import { request, cellarPath } from './http';
 
 export const fetchPlans = (cellarId: string): Promise<Plan[]> => request('GET', cellarPath(cellarId, 'plans'), planListSchema);
 

@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { rackSchema, type Rack, type RackCreate } from '@shared/schemas/places';
-import { request } from './http';
-import { cellarPath } from './paths';
+import { request, cellarPath } from './http';
 
 export interface RackChanges {
   name?: string;

@@ -1,7 +1,6 @@
 import { bottleCardSchema, scanResultSchema, type BottleCard, type ScanResult } from '@shared/schemas/scan';
 import { keptLabel } from '@/offline/kept-records';
-import { ApiError, request } from './http';
-import { apiPath } from './paths';
+import { ApiError, request, apiPath } from './http';
 
 /**
  * What a label code opens (404 when it opens nothing for this user). Without signal, the

@@ -9,8 +9,7 @@ import {
   type TaskList,
 } from '@shared/schemas/tasks';
 import type { BatchKind } from '@shared/schemas/batches';
-import { request } from './http';
-import { cellarPath, withQuery } from './paths';
+import { request, cellarPath, withQuery } from './http';
 
 export interface TaskFilter {
   batchId?: string;

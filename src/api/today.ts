@@ -1,6 +1,4 @@
 import { todaySchema, type Today } from '@shared/schemas/today';
-import { request } from './http';
-import { cellarPath } from './paths';
+import { request, cellarPath } from './http';
 
-export const fetchToday = (cellarId: string): Promise<Today> =>
-  request('GET', cellarPath(cellarId, 'today'), todaySchema);
+export const fetchToday = (cellarId: string): Promise<Today> => request('GET', cellarPath(cellarId, 'today'), todaySchema);

@@ -10,8 +10,7 @@ import {
 } from '@shared/schemas/vessels';
 import type { MoveRequest } from '@shared/schemas/places';
 import type { z } from 'zod';
-import { request, requestOrQueue } from './http';
-import { cellarPath, withQuery } from './paths';
+import { request, requestOrQueue, cellarPath, withQuery } from './http';
 
 const vesselPath = (cellarId: string, vesselId: string, ...rest: string[]) => cellarPath(cellarId, 'vessels', vesselId, ...rest);
 
@@ -65,5 +64,4 @@ export const moveVessel = (cellarId: string, vesselId: string, move: MoveRequest
   });
 
 /** Deletes an empty vessel (Keeper only). */
-export const deleteVessel = (cellarId: string, vesselId: string): Promise<void> =>
-  request('DELETE', vesselPath(cellarId, vesselId));
+export const deleteVessel = (cellarId: string, vesselId: string): Promise<void> => request('DELETE', vesselPath(cellarId, vesselId));
