@@ -4,7 +4,7 @@ import type { ZodType } from 'zod';
 import type { OperationResult } from '@shared/schemas/batch-detail';
 import { noteRequestSchema } from '@shared/schemas/journal';
 import { addNote } from '@/api/batches';
-import { fieldWords, plainMessage } from '@/components/operations/operation-errors';
+import { fieldWords, plainMessage } from '@/components/operations/useOperationDialog';
 import { useOperationDialog, type OperationDialogOptions } from '@/components/operations/useOperationDialog';
 import { fakeApi, type FakeAnswer } from './support/fake-api';
 import { BATCH_ID, CELLAR_ID, operationResult, signIn } from './support/fixtures';

@@ -1,13 +1,7 @@
-import { computed, ref } from 'vue';
+import { ref } from 'vue';
 import type { BatchDetail } from '@shared/schemas/batch-detail';
 import { fetchBatch } from '@/api/batches';
-import { useSessionStore } from '@/stores/session';
-
-/** The open cellar's id (the router guard sets it before any cellar page shows). */
-export function useCellarId() {
-  const session = useSessionStore();
-  return computed(() => session.currentCellarId ?? '');
-}
+import { useCellarId } from './useOperationDialog';
 
 /** The batch an operation dialog works on, loaded fresh each time the dialog opens. */
 export function useDialogBatch(batchId: () => string) {
