@@ -1,13 +1,14 @@
 import type { EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import type { ReadingResult, readingRequestSchema } from '../../shared/schemas/journal';
+import { recordedGravity } from '../../shared/calc';
 import { requireRole, type Actor } from '../core/actor';
+import { calc } from '../core/calc-guard';
 import { Vessel } from '../entities/vessel.entity';
 import { NotFoundError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
 import { vesselChangedError } from '../vessels/vessel-lock';
 import { lockBatchForEntry, notInVesselsError, occurredAt } from './batch-lookup';
-import { correctedGravity } from './corrected-gravity';
 
 type ReadingRequest = z.output<typeof readingRequestSchema>;
 
@@ -27,7 +28,7 @@ export async function addReading(actor: Actor, tx: EntityManager, batchId: strin
     throw await vesselChangedError(tx, await tx.getRepository(Vessel).findOneByOrFail({ id: namedVessel.id }));
   }
   const at = occurredAt(request.at, now, batch, timeZone);
-  const correctedSg = correctedGravity(request.sg, request.temperatureC, request.calibrationC);
+  const correctedSg = calc(() => recordedGravity(request.sg, request.temperatureC, request.calibrationC));
   const entry = await appendEntry(
     tx,
     actor,

@@ -1,10 +1,10 @@
 import crypto from 'node:crypto';
 import type { ZodType } from 'zod';
-import { brixToSg, celsiusFrom, litresFrom, platoToSg } from '../../shared/calc';
+import { brixToSg, celsiusFrom, litresFrom, platoToSg, recordedGravity } from '../../shared/calc';
 import type { ImportOptions, ImportProblem } from '../../shared/schemas/exchange';
 import { readingRequestSchema } from '../../shared/schemas/journal';
 import { vesselCreateSchema, type VesselKind } from '../../shared/schemas/vessels';
-import { correctedGravity } from '../batches/corrected-gravity';
+import { calc } from '../core/calc-guard';
 import { localDate } from '../core/local-date';
 import type { CsvRecord } from './csv-upload';
 import { readMoment, readNumber } from './import-values';
@@ -137,7 +137,7 @@ export function readingFromRow(
     sg: checked.sg,
     temperatureC: checked.temperatureC,
     calibrationC: checked.calibrationC,
-    correctedSg: correctedGravity(checked.sg, checked.temperatureC, checked.calibrationC),
+    correctedSg: calc(() => recordedGravity(checked.sg, checked.temperatureC, checked.calibrationC)),
     ph: checked.ph,
   };
   return { value, key: rowKey(at!.toISOString(), value.sg, value.temperatureC, value.ph), problems: [] };

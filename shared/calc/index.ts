@@ -43,6 +43,7 @@ export {
 export {
   waterDensity,
   correctGravity,
+  recordedGravity,
   CORRECTION_MIN_C,
   CORRECTION_MAX_C,
   CALIBRATION_60F_C,

@@ -52,14 +52,15 @@ export function waterDensity(celsius: number): number {
 export function correctGravity(reading: number, sampleC: number, calibrationC: number = CALIBRATION_20C): number {
   const r = requireGravity(reading, 'reading', 'Hydrometer reading');
   const t = requireRange(sampleC, 'sampleC', 'Sample temperature', CORRECTION_MIN_C, CORRECTION_MAX_C, 0, ' °C');
-  const c = requireRange(
-    calibrationC,
-    'calibrationC',
-    'Hydrometer calibration temperature',
-    CORRECTION_MIN_C,
-    CORRECTION_MAX_C,
-    0,
-    ' °C',
-  );
+  const c = requireRange(calibrationC, 'calibrationC', 'Hydrometer calibration temperature', CORRECTION_MIN_C, CORRECTION_MAX_C, 0, ' °C');
   return (r * waterDensity(c)) / waterDensity(t);
+}
+
+/**
+ * A reading as the record keeps it: corrected to the hydrometer's calibration when the sample's
+ * temperature was taken, the reading itself when it was not (nothing to correct by).
+ * @param sampleC - temperature of the sample in °C, or null when none was taken
+ */
+export function recordedGravity(reading: number, sampleC: number | null, calibrationC: number = CALIBRATION_20C): number {
+  return sampleC === null ? reading : correctGravity(reading, sampleC, calibrationC);
 }

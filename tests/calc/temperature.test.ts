@@ -2,6 +2,7 @@ import { describe, it, expect } from 'vitest';
 import {
   waterDensity,
   correctGravity,
+  recordedGravity,
   celsiusFrom,
   CALIBRATION_60F_C,
   CALIBRATION_20C,
@@ -114,6 +115,24 @@ describe('hydrometer correction, calibration 20 °C, against CRC water densities
     expect(correctGravity(1.05, 30)).toBeGreaterThan(1.05);
     expect(correctGravity(1.05, 10)).toBeLessThan(1.05);
     expect(correctGravity(1.05, 20)).toBeCloseTo(1.05, 12);
+  });
+});
+
+describe('a reading as the record keeps it', () => {
+  it('is the reading itself when no sample temperature was taken', () => {
+    expect(recordedGravity(1.046, null, 20)).toBe(1.046);
+    expect(recordedGravity(0.994, null, CALIBRATION_60F_C)).toBe(0.994);
+  });
+
+  it('is corrected to the calibration when it was (CRC water densities, as above)', () => {
+    // 1.100 read at 30 °C on a hydrometer calibrated at 20 °C: 1.100 × 0.99821 / 0.99565.
+    expect(Math.abs(recordedGravity(1.1, 30, 20) - (1.1 * CRC_WATER[20]) / CRC_WATER[30])).toBeLessThan(0.00003);
+    // AHA table (calibration 15 °C): 1.000 at 25 °C reads 0.0021 higher.
+    expect(Math.abs(recordedGravity(1.0, 25, 15) - 1.0021)).toBeLessThan(0.0001);
+  });
+
+  it('refuses a sample temperature outside the formula’s range, naming it', () => {
+    expectInputError(() => recordedGravity(1.05, 45, 20), 'sampleC');
   });
 });
 
