@@ -47,3 +47,36 @@ describe('ReadingDialog notes', () => {
     expect(document.querySelector('[data-test=reading-rise]')).toBeNull();
   });
 });
+
+describe('ReadingDialog preview', () => {
+  beforeEach(() => {
+    document.body.innerHTML = '';
+    signIn(fakeApi());
+  });
+  const batch = batchDetail({ og: 1.1, readings: [] });
+
+  async function typeReading(sg: string, temperatureC?: string) {
+    await mountInApp(ReadingDialog, `/c/${CELLAR_ID}/tasks`, {
+      props: { modelValue: true, batchId: BATCH_ID, context: readingContextOfBatch(batch) },
+    });
+    await vi.waitFor(() => pick('[data-test=reading-sg]'));
+    await new DOMWrapper(pick<HTMLInputElement>('[data-test=reading-sg]')).setValue(sg);
+    if (temperatureC) await new DOMWrapper(pick<HTMLInputElement>('[data-test=reading-temperature]')).setValue(temperatureC);
+    return pick('[data-test=reading-preview]').textContent ?? '';
+  }
+
+  it('shows the reading as typed when no temperature is given', async () => {
+    expect(await typeReading('1.050')).toMatch(/^Corrected gravity 1\.050, /);
+  });
+
+  it('corrects a warm sample to the 20 °C calibration and gives the alcohol so far', async () => {
+    const text = await typeReading('1.050', '25');
+    // CRC Handbook water densities (values from memory): 1.050 × 0.99821 / 0.99705 = 1.05122.
+    expect(text).toMatch(/^Corrected gravity 1\.051, /);
+    // Common practice, (OG − SG) × 131.25: (1.100 − 1.0512) × 131.25 ≈ 6.4 %; the Balling formula reads a little
+    // higher at this strength, so a bracket, not the code's own figure.
+    const abv = Number(/about (\d+\.\d) % ABV so far \(Balling\)/.exec(text)?.[1]);
+    expect(abv).toBeGreaterThanOrEqual(6.2);
+    expect(abv).toBeLessThanOrEqual(7.0);
+  });
+});
