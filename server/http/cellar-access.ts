@@ -1,9 +1,10 @@
 import type { Request, RequestHandler } from 'express';
 import type { DataSource } from 'typeorm';
-import { roleAtLeast, type Role } from '../../shared/roles';
+import type { Role } from '../../shared/roles';
 import { uuidSchema } from '../../shared/schemas/common';
+import { memberActor, requireRole } from '../core/actor';
 import { Membership } from '../entities/membership.entity';
-import { BadRequestError, ForbiddenError, NotFoundError, UnauthorizedError } from './errors';
+import { BadRequestError, NotFoundError, UnauthorizedError } from './errors';
 import { sessionPreload } from './session-store';
 
 export interface CellarAccessPolicy {
@@ -44,12 +45,8 @@ export function cellarAccess(ds: DataSource, policy: CellarAccessPolicy = { writ
     if (!id.success) throw new BadRequestError('params.cellarId: must be an id (UUID)');
     const role = await memberRole(ds, req, id.data, req.user.id);
     if (!role) throw new NotFoundError('No such cellar.');
-    const needed = neededRole(req.method, policy);
-    if (!roleAtLeast(role, needed)) {
-      throw new ForbiddenError(
-        needed === 'keeper' ? 'Only a Keeper of this cellar can do that.' : 'Guests can look but not change anything in this cellar.',
-      );
-    }
+    // The same check, and the same words, as the services' inner door.
+    requireRole(memberActor(id.data, req.user.id, role), neededRole(req.method, policy));
     req.cellar = { id: id.data, role };
     next();
   };
