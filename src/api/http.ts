@@ -2,7 +2,6 @@ import type { ZodType } from 'zod';
 import { apiErrorSchema } from '@shared/schemas/common';
 import type { NewQueuedWrite } from '@/offline/outbox';
 import type { QueuedWriteKind } from '@/offline/queued-write';
-import { newIdempotencyKey } from '@/offline/idempotency-key';
 import { takeEarlyAnswer } from './early-requests';
 
 /**
@@ -138,6 +137,20 @@ export interface QueueableWrite {
    * so it keeps its own time, not the time it is sent.
    */
   stampField?: string;
+}
+
+/**
+ * A fresh key for one write (a version-4 UUID). `crypto.randomUUID` exists only in secure
+ * contexts; a phone reaching the app over plain HTTP on the local network builds the same
+ * form from `crypto.getRandomValues`, which every context has.
+ */
+function newIdempotencyKey(): string {
+  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID();
+  const bytes = crypto.getRandomValues(new Uint8Array(16));
+  bytes[6] = (bytes[6] & 0x0f) | 0x40;
+  bytes[8] = (bytes[8] & 0x3f) | 0x80;
+  const hex = [...bytes].map((b) => b.toString(16).padStart(2, '0')).join('');
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
 }
 
 /**

@@ -85,4 +85,30 @@ describe('a write made without a connection', () => {
     expect(api.callsTo('POST', notesPath).map((c) => c.body)).toEqual([{ text: 'Clear at last.' }]);
     expect(headersSeen.at(-1)).toMatch(/^[0-9a-f-]{36}$/);
   });
+  it('gets a version-4 UUID as its key where the page has no crypto.randomUUID (plain HTTP on the local network)', async () => {
+    const api = fakeApi();
+    const keys: (string | null)[] = [];
+    const realFetch = globalThis.fetch;
+    vi.stubGlobal('fetch', (input: RequestInfo | URL, init: RequestInit = {}) => {
+      keys.push(new Headers(init.headers).get('Idempotency-Key'));
+      return realFetch(input, init);
+    });
+    signIn(api);
+    api.on('POST', notesPath, { status: 201, body: operationResult() });
+    setOfflineHooks({ queue: async () => undefined, reached: () => undefined });
+    // Browsers leave randomUUID out of insecure contexts; an own property hides the prototype's.
+    Object.defineProperty(crypto, 'randomUUID', { value: undefined, configurable: true });
+    try {
+      await addNote(CELLAR_ID, BATCH_ID, { text: 'First.' });
+      await addNote(CELLAR_ID, BATCH_ID, { text: 'Second.' });
+    } finally {
+      Reflect.deleteProperty(crypto, 'randomUUID');
+    }
+    expect(typeof crypto.randomUUID).toBe('function');
+    const sent = keys.filter((k) => k !== null);
+    expect(sent).toHaveLength(2);
+    // RFC 9562 (formerly RFC 4122): version nibble 4, variant bits 10xx.
+    for (const key of sent) expect(key).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/);
+    expect(sent[0]).not.toBe(sent[1]);
+  });
 });
