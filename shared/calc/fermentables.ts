@@ -8,15 +8,7 @@
  * (common practice), scaled by its dry matter when its moisture is known.
  */
 import { sgToBrix } from './gravity';
-import {
-  CalcInputError,
-  GRAVITY_MAX,
-  requireGravity,
-  requireNonNegative,
-  requireOneOf,
-  requireRange,
-  showNumber,
-} from './guards';
+import { CalcInputError, GRAVITY_MAX, requireGravity, requireNonNegative, requireOneOf, requireRange, showNumber } from './guards';
 import { solveRising } from './solve';
 import { waterDensity } from './temperature';
 import { KILOGRAMS_PER_POUND, LITRES_PER_US_GALLON } from './units';
@@ -62,7 +54,8 @@ export function sugarPerLitre(sg: number): number {
 
 function sugarAt(sg: number): number {
   if (sg <= 1) return 0;
-  return (sgToBrix(sg) / 100) * sg * (waterDensity(20) / 1000);
+  // The °Brix fit reads −0.005 at 1.000 and crosses zero near 1.00002: no sugar below that, never less than none.
+  return Math.max(0, (sgToBrix(sg) / 100) * sg * (waterDensity(20) / 1000));
 }
 
 /** Options for fermentableForGravity. */
@@ -133,10 +126,7 @@ export function gravityFromFermentable(input: GravityFromFermentableInput): numb
   const wanted = sugarAt(start) + (kg * sugarEquivalent(source, input.honeyMoisturePercent)) / volume;
   // A part in 10¹² of slack, so the amount worked out for 1.200 itself is accepted back.
   if (wanted > sugarAt(GRAVITY_MAX) * (1 + 1e-12)) {
-    throw new CalcInputError(
-      'kg',
-      `That much ${source} would take the must above ${showNumber(GRAVITY_MAX, 3)}, beyond what yeast can ferment.`,
-    );
+    throw new CalcInputError('kg', `That much ${source} would take the must above ${showNumber(GRAVITY_MAX, 3)}, beyond what yeast can ferment.`);
   }
   // No sugar below 1.000, so the answer lies between 1.000 and the highest gravity accepted.
   return kg === 0 ? start : solveRising(sugarAt, wanted, 1, GRAVITY_MAX);
