@@ -41,6 +41,17 @@ async function mountNoteDialog(answer: 'network-down' | 'ok') {
   return { api, kept, wrapper, submit: () => submit() };
 }
 
+/** The Idempotency-Key header of every request from here on (null where it has none), the fake API still answering. */
+function recordIdempotencyKeys(): (string | null)[] {
+  const keys: (string | null)[] = [];
+  const fakeFetch = globalThis.fetch;
+  vi.stubGlobal('fetch', (input: RequestInfo | URL, init: RequestInit = {}) => {
+    keys.push(new Headers(init.headers).get('Idempotency-Key'));
+    return fakeFetch(input, init);
+  });
+  return keys;
+}
+
 afterEach(() => {
   setOfflineHooks(undefined);
   vi.useRealTimers();
@@ -70,12 +81,7 @@ describe('a write made without a connection', () => {
 
   it('with a connection is sent at once with an Idempotency-Key and nothing is kept', async () => {
     const api = fakeApi();
-    const headersSeen: (string | null)[] = [];
-    const realFetch = globalThis.fetch;
-    vi.stubGlobal('fetch', (input: RequestInfo | URL, init: RequestInit = {}) => {
-      headersSeen.push(new Headers(init.headers).get('Idempotency-Key'));
-      return realFetch(input, init);
-    });
+    const headersSeen = recordIdempotencyKeys();
     signIn(api);
     api.on('POST', notesPath, { status: 201, body: operationResult() });
     const kept: unknown[] = [];
@@ -85,14 +91,10 @@ describe('a write made without a connection', () => {
     expect(api.callsTo('POST', notesPath).map((c) => c.body)).toEqual([{ text: 'Clear at last.' }]);
     expect(headersSeen.at(-1)).toMatch(/^[0-9a-f-]{36}$/);
   });
+
   it('gets a version-4 UUID as its key where the page has no crypto.randomUUID (plain HTTP on the local network)', async () => {
     const api = fakeApi();
-    const keys: (string | null)[] = [];
-    const realFetch = globalThis.fetch;
-    vi.stubGlobal('fetch', (input: RequestInfo | URL, init: RequestInit = {}) => {
-      keys.push(new Headers(init.headers).get('Idempotency-Key'));
-      return realFetch(input, init);
-    });
+    const keys = recordIdempotencyKeys();
     signIn(api);
     api.on('POST', notesPath, { status: 201, body: operationResult() });
     setOfflineHooks({ queue: async () => undefined, reached: () => undefined });
