@@ -8,6 +8,7 @@ import { contextOf, makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '.
 import { addJournalEntry } from '../helpers/journal';
 import { fillVessel, makeVessel, sanitisedVessel } from '../helpers/vessels';
 import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
+import { logReadingThroughDialog } from '../helpers/browser-steps';
 
 /** A queued write as the page keeps it in IndexedDB (src/offline/queued-write.ts). */
 interface KeptWrite {
@@ -68,15 +69,6 @@ describeInBrowser(
       await page.evaluate((url) => fetch(url).then((r) => r.status), `/api/cellars/${crew.cellar.id}/batches/${batchId}`);
       await page.goto(`${baseUrl}/c/${crew.cellar.id}/vessels/${vesselId}`);
       await page.waitForSelector('[data-test=action-reading]');
-    }
-
-    /** Logs a reading through the Vessel page's dialog. */
-    async function logReading(page: Page, sg: string): Promise<void> {
-      await page.click('[data-test=action-reading]');
-      await page.waitForSelector('[data-test=reading-sg]');
-      await page.fill('[data-test=reading-sg]', sg);
-      await page.click('[data-test=reading-submit]');
-      await page.waitForSelector('[data-test=reading-dialog]', { state: 'detached' });
     }
 
     /** The writes kept in the page's IndexedDB. */
@@ -150,7 +142,7 @@ describeInBrowser(
 
       await context.setOffline(true);
       await page.waitForSelector('[data-test=offline-banner]');
-      await logReading(page, '1.030');
+      await logReadingThroughDialog(page, '1.030');
       await expect.poll(() => page.textContent('[data-test=pending-count]')).toBe('1');
       const [kept] = await keptWrites(page);
       expect(kept.body).toMatchObject({ sg: 1.03, vesselId, at: kept.madeAt });
@@ -217,7 +209,7 @@ describeInBrowser(
       await openVesselOnline(page, batchId, vesselId);
 
       await context.setOffline(true);
-      await logReading(page, '1.012');
+      await logReadingThroughDialog(page, '1.012');
       await expect.poll(() => page.textContent('[data-test=pending-count]')).toBe('1');
       // Someone else racks the batch into another vessel while the phone has no signal.
       await inTransaction(ds, 'write', (tx) =>
@@ -312,7 +304,7 @@ describeInBrowser(
       await page.goto(`${baseUrl}/s/${code}`);
       await page.waitForURL(`${baseUrl}/c/${crew.cellar.id}/vessels/${vesselId}`);
       await expect.poll(() => page.textContent('[data-test=vessel-title]')).toBe('Shed cider carboy');
-      await logReading(page, '1.004');
+      await logReadingThroughDialog(page, '1.004');
       await expect.poll(() => page.textContent('[data-test=pending-count]')).toBe('1');
 
       // The Scan page's typed code (as the camera's) finds the same kept record without signal.

@@ -2,7 +2,7 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import fs from 'node:fs';
-import type { BrowserContext, Page } from 'playwright-core';
+import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe } from 'vitest';
 import { chromiumAvailable, launchBrowser } from '../tools/browser';
 import { testApp } from './test-app';
@@ -63,11 +63,4 @@ export interface BrowserEnv {
   ds: Awaited<ReturnType<typeof testApp>>['ds'];
 }
 
-/** Signs in through the sign-in form and waits for the Today screen. */
-export async function signInThroughForm(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.fill('[data-test=email]', email);
-  await page.fill('[data-test=password]', password);
-  await page.click('[data-test=sign-in]');
-  await page.waitForURL(/\/c\/[^/]+\/today$/);
-}
+export { signInThroughForm } from './browser-steps';

@@ -22,6 +22,7 @@ import path from 'node:path';
 import { chromium, type CDPSession, type Page } from 'playwright-core';
 import WebSocket from 'ws';
 import { freePort } from '../helpers/app-process';
+import { logReadingThroughDialog, signInThroughForm } from '../helpers/browser-steps';
 import { CHROMIUM_ARGS, CHROMIUM_PATH } from './browser';
 
 const checkout = path.resolve(process.argv[2] ?? path.join(import.meta.dirname, '../..'));
@@ -130,13 +131,9 @@ async function stop(child: ChildProcess): Promise<void> {
   clearTimeout(late);
 }
 
-/** Opens the dialog, types a gravity, saves, and waits until the page shows the reading. */
+/** Logs a reading through the dialog and waits until the page shows it. */
 async function logReading(page: Page, sg: string): Promise<void> {
-  await page.click('[data-test=action-reading]');
-  await page.waitForSelector('[data-test=reading-dialog]');
-  await page.fill('[data-test=reading-sg]', sg);
-  await page.click('[data-test=reading-submit]');
-  await page.waitForSelector('[data-test=reading-dialog]', { state: 'detached' });
+  await logReadingThroughDialog(page, sg);
   await page.waitForFunction((text) => document.querySelector('[data-test=last-reading-corrected]')?.textContent?.trim() === text, sg);
 }
 
@@ -169,11 +166,7 @@ async function main(): Promise<void> {
     const base = `http://127.0.0.1:${clientPort}`;
     const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
     page.setDefaultTimeout(60_000);
-    await page.goto(`${base}/sign-in`);
-    await page.fill('[data-test=email]', DEMO_EMAIL);
-    await page.fill('[data-test=password]', DEMO_PASSWORD);
-    await page.click('[data-test=sign-in]');
-    await page.waitForURL(/\/c\/[^/]+\/today$/);
+    await signInThroughForm(page, base, DEMO_EMAIL, DEMO_PASSWORD);
     const cellarId = new URL(page.url()).pathname.split('/')[2]!;
     const vessels = (await page.evaluate((url) => fetch(url).then((r) => r.json()), `/api/cellars/${cellarId}/vessels`)) as
       | { items?: { id: string; batchId?: string | null; batch?: { id: string } | null }[] }
