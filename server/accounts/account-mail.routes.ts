@@ -4,7 +4,7 @@ import type { DataSource } from 'typeorm';
 import { invitationSignUpSchema, passwordResetCompleteSchema, passwordResetRequestSchema, tokenRequestSchema } from '../../shared/schemas/accounts';
 import { inTransaction } from '../core/unit-of-work';
 import { handle } from '../http/handle';
-import { requireSignIn } from '../http/require-sign-in';
+import { requireSignIn } from '../http/access';
 import { acceptInvitation, previewInvitation, signUpWithInvitation } from './invitation-acceptance';
 import { mailRequestLimit, type MailRateLimits } from './mail-rate-limits';
 import { completePasswordReset, requestPasswordReset } from './password-reset';

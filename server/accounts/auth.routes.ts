@@ -4,7 +4,7 @@ import type { DataSource } from 'typeorm';
 import { signInRequestSchema } from '../../shared/schemas/auth';
 import { AppError, UnauthorizedError } from '../http/errors';
 import { handle } from '../http/handle';
-import { requireSignIn } from '../http/require-sign-in';
+import { requireSignIn } from '../http/access';
 import { sharedLimit } from '../http/shared-rate-limit';
 import { describeSessionUser } from './session-user';
 

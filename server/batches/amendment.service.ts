@@ -5,7 +5,6 @@ import type { OperationResult } from '../../shared/schemas/batch-detail';
 import type { amendRequestSchema, JournalKind, JournalPayload } from '../../shared/schemas/journal';
 import { recordedGravity } from '../../shared/calc';
 import { requireRole, type Actor } from '../core/actor';
-import { calc } from '../core/calc-guard';
 import { ConflictError, NotFoundError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
 import { correctedEntry } from '../journal/journal-queries';
@@ -47,7 +46,7 @@ export function amendEntry(actor: Actor, tx: EntityManager, batchId: string, ent
     const changes = parseChanges(original.kind, request.changes);
     if (original.kind === 'reading') {
       const merged = { ...original.payload, ...changes } as Extract<JournalPayload, { kind: 'reading' }>;
-      changes.correctedSg = calc(() => recordedGravity(merged.sg, merged.temperatureC, merged.calibrationC));
+      changes.correctedSg = recordedGravity(merged.sg, merged.temperatureC, merged.calibrationC);
     }
     if (original.kind === 'started') await applyStartCorrection(tx, batch, changes, localDate(now, cellar.timeZone));
     const entry = await appendEntry(tx, actor, batch.id, { kind: 'amendment', reason: request.reason, changes }, { amendsEntryId: original.id });

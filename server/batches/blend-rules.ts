@@ -1,5 +1,4 @@
 import { gravityPoints } from '../../shared/calc';
-import { calc } from '../core/calc-guard';
 
 /**
  * The blend's original gravity: the volume-weighted mean of its parents' OG in gravity points
@@ -8,7 +7,7 @@ import { calc } from '../core/calc-guard';
 export function blendedOg(shares: { og: number | null; volumeL: number }[]): number | null {
   if (shares.some((s) => s.og === null)) return null;
   const totalL = shares.reduce((sum, s) => sum + s.volumeL, 0);
-  const points = shares.reduce((sum, s) => sum + calc(() => gravityPoints(s.og as number)) * s.volumeL, 0) / totalL;
+  const points = shares.reduce((sum, s) => sum + gravityPoints(s.og as number) * s.volumeL, 0) / totalL;
   return Number((1 + points / 1000).toFixed(3));
 }
 

@@ -2,7 +2,6 @@ import type { EntityManager } from 'typeorm';
 import { CAUTION_GLASS, headspace } from '../../shared/calc';
 import { headspaceIsRisk } from '../../shared/domain/headspace-rule';
 import { vesselState } from '../../shared/domain/vessel-state';
-import { calc } from '../core/calc-guard';
 import { litres } from '../core/litres';
 import { Batch } from '../entities/batch.entity';
 import type { Cellar } from '../entities/cellar.entity';
@@ -92,7 +91,7 @@ export function headspaceWarnings(filled: { vessel: Vessel; volumeL: number }[],
   const warnings: string[] = [];
   if (!headspaceIsRisk(stage)) return warnings;
   for (const { vessel, volumeL } of filled) {
-    const space = calc(() => headspace({ capacityL: vessel.capacityL, volumeL }));
+    const space = headspace({ capacityL: vessel.capacityL, volumeL });
     if (space.percent > cellar.headspaceWarnPercent) {
       warnings.push(
         `${vessel.name} has ${percentText(space.percent, cellar.headspaceWarnPercent)} % headspace — top up or use a smaller vessel to limit oxidation.`,

@@ -3,7 +3,6 @@ import type { z } from 'zod';
 import type { ReadingResult, readingRequestSchema } from '../../shared/schemas/journal';
 import { recordedGravity } from '../../shared/calc';
 import { requireRole, type Actor } from '../core/actor';
-import { calc } from '../core/calc-guard';
 import { Vessel } from '../entities/vessel.entity';
 import { NotFoundError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
@@ -28,7 +27,7 @@ export async function addReading(actor: Actor, tx: EntityManager, batchId: strin
     throw await vesselChangedError(tx, await tx.getRepository(Vessel).findOneByOrFail({ id: namedVessel.id }));
   }
   const at = occurredAt(request.at, now, batch, timeZone);
-  const correctedSg = calc(() => recordedGravity(request.sg, request.temperatureC, request.calibrationC));
+  const correctedSg = recordedGravity(request.sg, request.temperatureC, request.calibrationC);
   const entry = await appendEntry(
     tx,
     actor,

@@ -4,7 +4,6 @@ import { brixToSg, celsiusFrom, litresFrom, platoToSg, recordedGravity } from '.
 import type { ImportOptions, ImportProblem } from '../../shared/schemas/exchange';
 import { readingRequestSchema } from '../../shared/schemas/journal';
 import { vesselCreateSchema, type VesselKind } from '../../shared/schemas/vessels';
-import { calc } from '../core/calc-guard';
 import { localDate } from '../core/local-date';
 import type { CsvRecord } from './csv-upload';
 import { readMoment, readNumber } from './import-values';
@@ -137,7 +136,7 @@ export function readingFromRow(
     sg: checked.sg,
     temperatureC: checked.temperatureC,
     calibrationC: checked.calibrationC,
-    correctedSg: calc(() => recordedGravity(checked.sg, checked.temperatureC, checked.calibrationC)),
+    correctedSg: recordedGravity(checked.sg, checked.temperatureC, checked.calibrationC),
     ph: checked.ph,
   };
   return { value, key: rowKey(at!.toISOString(), value.sg, value.temperatureC, value.ph), problems: [] };

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { CalcInputError } from '../../shared/calc';
 import type { ApiErrorBody } from '../../shared/schemas/common';
 import { databaseErrorAnswer } from './database-errors';
 import { AppError } from './errors';
@@ -41,6 +42,10 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (err instanceof AppError) {
     return send(err.status, { error: err.code, message: err.message, ...err.details });
+  }
+  // A shared/calc function refused what it was given (services call them directly).
+  if (err instanceof CalcInputError) {
+    return send(400, { error: 'bad_request', message: err.message, field: err.field });
   }
   // body-parser's own errors carry a `type`.
   const type = (err as { type?: string }).type;

@@ -3,7 +3,7 @@ import type { DataSource } from 'typeorm';
 import { scanCodeParamsSchema } from '../../shared/schemas/scan';
 import { NotFoundError } from '../http/errors';
 import { handle } from '../http/handle';
-import { requireSignIn } from '../http/require-sign-in';
+import { requireSignIn } from '../http/access';
 import { sharedLimit } from '../http/shared-rate-limit';
 import { bottleCard, resolveCode, scanDestination } from './code-lookup';
 

@@ -4,6 +4,7 @@ import zlib from 'node:zlib';
 import { QueryFailedError } from 'typeorm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { errorHandler } from '../../server/http/error-handler';
+import { recordedGravity } from '../../shared/calc';
 import { makeBatchInVessels } from '../helpers/batches';
 import { crewWithAgents, makeUser, TEST_PASSWORD, type Crew } from '../helpers/crew';
 import { addJournalEntry } from '../helpers/journal';
@@ -180,6 +181,21 @@ describe('database refusals', () => {
     expect(status).toBe(409);
     expect(body.message).toBe('That person is already a member of this cellar.');
     expect(JSON.stringify(body)).not.toMatch(/uq_|constraint/);
+  });
+
+  it('answers a calculation that refuses its input with 400 naming the field, not 500', () => {
+    // Services call shared/calc directly; a 45 °C sample is past the correction's table.
+    const refusal = (() => {
+      try {
+        recordedGravity(1.05, 45, 20);
+      } catch (error) {
+        return error;
+      }
+    })();
+    const { status, body } = answerTo(refusal);
+    expect(status).toBe(400);
+    expect(body).toMatchObject({ error: 'bad_request', field: 'sampleC' });
+    expect(String(body.message)).toMatch(/45/);
   });
 
   it('answers check, NUL, date and range refusals with 400', () => {

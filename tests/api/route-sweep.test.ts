@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { neededRole } from '../../server/http/cellar-access';
+import { neededRole } from '../../server/http/access';
 import { roleAtLeast, type Role } from '../../shared/roles';
 import { crewWithAgents, type Crew } from '../helpers/crew';
 import { routesOf, type RouteInfo } from '../helpers/route-table';

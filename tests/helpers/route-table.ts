@@ -1,8 +1,7 @@
 import type { Express, RequestHandler } from 'express';
 import type { ZodType } from 'zod';
-import { CELLAR_POLICY, type CellarAccessPolicy } from '../../server/http/cellar-access';
+import { CELLAR_POLICY, requireSignIn, type CellarAccessPolicy } from '../../server/http/access';
 import { ROUTE_SCHEMAS } from '../../server/http/handle';
-import { requireSignIn } from '../../server/http/require-sign-in';
 
 /** What guards a route, as found on the middleware in front of it. */
 export type RouteGate =

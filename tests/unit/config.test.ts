@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { loadConfig } from '../../server/config';
-import { neededRole } from '../../server/http/cellar-access';
+import { neededRole } from '../../server/http/access';
 
 describe('loadConfig', () => {
   it('uses loopback defaults', () => {

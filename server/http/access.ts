@@ -1,3 +1,4 @@
+// The HTTP doors: signed in, and (under /api/cellars/:cellarId) a member with the role the method needs.
 import type { Request, RequestHandler } from 'express';
 import type { DataSource } from 'typeorm';
 import type { Role } from '../../shared/roles';
@@ -11,6 +12,12 @@ export interface CellarAccessPolicy {
   /** Least role for POST, PUT and PATCH. DELETE always needs a Keeper. */
   write: Role;
 }
+
+/** The outer door of every API route past sign-in: a session with a user. */
+export const requireSignIn: RequestHandler = (req, _res, next) => {
+  if (!req.user) throw new UnauthorizedError();
+  next();
+};
 
 const READ_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
