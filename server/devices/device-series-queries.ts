@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { HOURLY_WINDOW_DAYS, RAW_WINDOW_HOURS, type DevicePoint } from '../../shared/schemas/devices';
+import type { DeviceDayFigures } from '../../shared/domain/device-day-line';
 
 /**
  * A batch's device readings thinned in SQL, so the page gets a few hundred points however many
@@ -26,15 +27,6 @@ export async function thinnedPoints(tx: EntityManager, cellarId: string, batchId
     [cellarId, batchId, now, timeZone, RAW_WINDOW_HOURS, HOURLY_WINDOW_DAYS],
   );
   return rows.map((r) => ({ at: r.at.toISOString(), sg: r.sg, temperatureC: r.temperatureC, count: r.count, resolution: r.resolution }));
-}
-
-export interface DeviceDayFigures {
-  day: string;
-  count: number;
-  firstSg: number;
-  lastSg: number;
-  minTemperatureC: number | null;
-  maxTemperatureC: number | null;
 }
 
 /** A batch's device readings by local day of the cellar, newest day first: count, first and last gravity, temperature range. */

@@ -1,9 +1,9 @@
 import type { EntityManager } from 'typeorm';
+import { deviceDayLine } from '../../shared/domain/device-day-line';
 import type { DeviceSeries } from '../../shared/schemas/devices';
 import { findBatch } from '../batches/batch-lookup';
 import { loadCellar } from '../cellars/load-cellar';
 import { requireRole, type Actor } from '../core/actor';
-import { deviceDayLine } from './device-day-line';
 import { deviceDays, thinnedPoints } from './device-series-queries';
 
 /**

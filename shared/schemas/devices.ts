@@ -125,7 +125,7 @@ export const deviceDaySchema = z.object({
   lastSg: z.number(),
   minTemperatureC: z.number().nullable(),
   maxTemperatureC: z.number().nullable(),
-  /** "Hydrometer: 96 readings, 1.020 → 1.012, 18–19 °C", in the cellar's units. */
+  /** "Hydrometer: 96 readings, 1.020 → 1.012, 18–19 °C", in the cellar's units (the page words it again in the person's). */
   line: z.string(),
 });
 export type DeviceDay = z.infer<typeof deviceDaySchema>;

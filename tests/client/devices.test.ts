@@ -2,6 +2,7 @@ import { DOMWrapper, flushPromises } from '@vue/test-utils';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Device, DeviceDay } from '@shared/schemas/devices';
 import type { JournalEntry } from '@shared/schemas/journal';
+import DeviceDayItem from '@/components/devices/DeviceDayItem.vue';
 import DevicesCard from '@/components/devices/DevicesCard.vue';
 import { firstRows, timelineRows, withDeviceReadings } from '@/components/devices/device-series';
 import { fakeApi, type FakeApi } from './support/fake-api';
@@ -61,6 +62,25 @@ describe('device readings beside the journal', () => {
       ['2026-11-03', 1.04],
     ]);
     expect(withDeviceReadings(batch, [])).toBe(batch);
+  });
+});
+
+describe('a day of device readings in the journal', () => {
+  beforeEach(() => {
+    localStorage.clear();
+    signIn(fakeApi());
+  });
+
+  it('is worded in the units this person chose, not the cellar’s the answer came in', async () => {
+    localStorage.setItem('cellarwright.units', 'us');
+    await mountInApp(DeviceDayItem, `/c/${CELLAR_ID}/batches/${BATCH_ID}`, { props: { day: day('2026-11-05') } });
+    // 18 °C = 64.4 °F, 19 °C = 66.2 °F (NIST SP 811, B.9: t/°F = 1.8 · t/°C + 32).
+    expect(pick('[data-test=journal-device-day]').textContent).toContain('Hydrometer: 96 readings, 1.020 → 1.012, 64–66 °F');
+  });
+
+  it('stays in °C where nobody chose otherwise and the cellar is metric', async () => {
+    await mountInApp(DeviceDayItem, `/c/${CELLAR_ID}/batches/${BATCH_ID}`, { props: { day: day('2026-11-05') } });
+    expect(pick('[data-test=journal-device-day]').textContent).toContain('Hydrometer: 96 readings, 1.020 → 1.012, 18–19 °C');
   });
 });
 
