@@ -4,6 +4,7 @@ import { computed } from 'vue';
 import { ageInDays, formatMass, formatTemperature, formatVolume, litresFrom, litresTo } from '@shared/calc';
 import { usePreferencesStore } from '@/stores/preferences';
 import { datesInStyle, formatDateInStyle } from './date-style';
+import { quantitiesInUnits } from './message-units';
 import { useUnits } from './useUnits';
 
 dayjs.extend(relativeTime);
@@ -45,6 +46,8 @@ export function useFormat() {
     dateTime: (iso: string | Date | null | undefined) => (iso ? `${date(iso)}, ${dayjs(iso).format('HH:mm')}` : '—'),
     /** A message (a server's, say) with its YYYY-MM-DD dates in the user's style. */
     datesInMessage: (message: string) => datesInStyle(message, preferences.dateStyle),
+    /** A shared schema's message with its metric limits in the user's units ("at most 104 °F"). */
+    limitsInUnits: (message: string) => quantitiesInUnits(message, system.value),
     fromNow: (iso: string | Date | null | undefined) => (iso ? dayjs(iso).fromNow() : '—'),
     /** Whole days since a date, by the cellar's one age rule (shared/calc ageInDays). */
     daysSince: (iso: string | Date) => ageInDays(dayjs(iso).format('YYYY-MM-DD'), dayjs().format('YYYY-MM-DD')),

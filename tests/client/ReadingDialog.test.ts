@@ -68,6 +68,21 @@ describe('ReadingDialog', () => {
     expect(wrapper.emitted('done')).toBeUndefined();
   });
 
+  it('gives the temperature limit in °F to someone who types °F, and sends nothing', async () => {
+    localStorage.setItem('cellarwright.units', 'us');
+    try {
+      await openDialog();
+      await type('[data-test=reading-sg]', '1.050');
+      // 113 °F is 45 °C, past the schema's 40 °C; 40 °C is 104 °F (NIST SP 811, B.9: t/°F = 1.8 · t/°C + 32).
+      await type('[data-test=reading-temperature]', '113');
+      await submit();
+      expect(fieldMessage('[data-test=reading-temperature]')).toBe('at most 104 °F');
+      expect(api.callsTo('POST', readingsPath)).toHaveLength(0);
+    } finally {
+      localStorage.removeItem('cellarwright.units');
+    }
+  });
+
   it('shows the field message of a 400 under that field, keeps the dialog open and emits nothing', async () => {
     api.on('POST', readingsPath, {
       status: 400,

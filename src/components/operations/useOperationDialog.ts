@@ -69,8 +69,9 @@ function warningsOf(result: unknown): string[] {
 export function useOperationDialog<Request, Result>(options: OperationDialogOptions<Request, Result>) {
   const $q = useQuasar();
   const cellarId = useCellarId();
-  // The server writes dates as YYYY-MM-DD; they are shown in the user's date style.
-  const { datesInMessage } = useFormat();
+  // The server writes dates as YYYY-MM-DD; they are shown in the user's date style. The schema's
+  // limits are metric; they are shown in the units the user types in.
+  const { datesInMessage, limitsInUnits } = useFormat();
   const errors = reactive<FieldMessages>({});
   const busy = ref(false);
   const failure = ref<ApiError | null>(null);
@@ -102,7 +103,7 @@ export function useOperationDialog<Request, Result>(options: OperationDialogOpti
     const schema = typeof options.schema === 'function' ? options.schema() : options.schema;
     const parsed = schema.safeParse(value);
     if (parsed.success) return parsed.data;
-    for (const issue of parsed.error.issues) errors[fieldKey(issue.path.join('.'))] ??= friendlyMessage(issue);
+    for (const issue of parsed.error.issues) errors[fieldKey(issue.path.join('.'))] ??= limitsInUnits(friendlyMessage(issue));
     markShownValues();
     return null;
   }
