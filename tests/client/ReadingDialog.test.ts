@@ -105,7 +105,10 @@ describe('ReadingDialog', () => {
     localStorage.setItem('cellarwright.units', 'us');
     api.on('POST', readingsPath, { status: 201, body: readingResult() });
     await openDialog();
-    expect(pick('[data-test=reading-temperature]').closest('.q-field')?.textContent).toContain('Temperature (°F)');
+    const temperatureField = pick('[data-test=reading-temperature]').closest('.q-field');
+    expect(temperatureField?.querySelector('.q-field__label')?.textContent).toBe('Temperature');
+    expect(temperatureField?.querySelector('.q-field__suffix')?.textContent).toBe('°F');
+    expect(pick('[data-test=reading-calibration]').closest('.q-field')?.textContent).toContain('60 °F');
 
     await type('[data-test=reading-sg]', '1.020');
     await type('[data-test=reading-temperature]', '68');
