@@ -147,7 +147,7 @@ export const DEMO_BATCHES: DemoBatch[] = [
       water(8),
     ],
     notes: 'Fruit in primary. Medium-toast oak in secondary.',
-    startIn: [['bigGlass', 12]],
+    startIn: [['f2', 12]],
     readings: [
       { day: 0, sg: 1.105 },
       { day: 10, sg: 1.03 },

@@ -67,6 +67,24 @@ describe('demo cellar', () => {
     expect(left).toBe(42 - 9);
   });
 
+  it('keeps every batch where its journal put it: a batch still in bulk is in a vessel, and none holds more than it was started with', async () => {
+    const rows: { name: string; stage: string; startedL: number; heldL: number; vessels: number }[] = await ds.query(
+      `SELECT b.name, b.stage, (s.payload->>'volumeL')::float8 AS "startedL",
+              COALESCE(SUM(v.volume_l), 0)::float8 AS "heldL", count(v.id)::int AS vessels
+         FROM batches b
+         JOIN journal_entries s ON s.batch_id = b.id AND s.kind = 'started'
+         LEFT JOIN vessels v ON v.batch_id = b.id
+        WHERE b.cellar_id = $1
+        GROUP BY b.id, s.payload`,
+      [crew.cellar.id],
+    );
+    expect(rows).toHaveLength(DEMO_BATCHES.length + 1);
+    for (const row of rows) {
+      if (['primary', 'secondary', 'bulk-ageing'].includes(row.stage)) expect(row.vessels, `${row.name} is in no vessel`).toBeGreaterThan(0);
+      expect(row.heldL, `${row.name} holds more than it was started with`).toBeLessThanOrEqual(row.startedL);
+    }
+  });
+
   it('logs each planned reading exactly once', async () => {
     for (const def of DEMO_BATCHES) {
       const [{ n }] = await ds.query(
