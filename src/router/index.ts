@@ -21,12 +21,16 @@ function preloadPages(to: RouteLocationNormalized): void {
   }
 }
 
+/** The layout's fixed header: a section scrolled to lands just below it. */
+const HEADER_HEIGHT_PX = 56;
+
 /**
  * Builds the router with its sign-in guard. Tests pass a memory history.
  * @param history - web history in the app, memory history in tests
  */
 export function createAppRouter(history: RouterHistory = createWebHistory()): Router {
-  const router = createRouter({ history, routes, scrollBehavior: () => ({ top: 0 }) });
+  // A new page starts at its top; an address with #section (Settings' jump list) scrolls to it, below the fixed header.
+  const router = createRouter({ history, routes, scrollBehavior: (to) => (to.hash ? { el: to.hash, top: HEADER_HEIGHT_PX } : { top: 0 }) });
 
   router.beforeEach(async (to) => {
     const session = useSessionStore();
