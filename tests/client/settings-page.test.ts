@@ -42,8 +42,10 @@ describe('Settings page', () => {
     signIn(fakeApi(), 'keeper');
     const { router } = await mountInApp(SettingsPage, settingsPath);
     const scroll = router.options.scrollBehavior!;
-    const at = (hash: string) => router.resolve({ path: settingsPath, hash });
-    expect(await scroll(at('#plans'), at(''), null)).toEqual({ el: '#plans', top: 56 });
-    expect(await scroll(at(''), at('#plans'), null)).toEqual({ top: 0 });
+    const page = router.currentRoute.value;
+    await router.push({ path: settingsPath, hash: '#plans' });
+    const section = router.currentRoute.value;
+    expect(await scroll(section, page, null)).toEqual({ el: '#plans', top: 56 });
+    expect(await scroll(page, section, null)).toEqual({ top: 0 });
   });
 });
