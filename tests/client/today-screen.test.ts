@@ -1,6 +1,7 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises } from '@vue/test-utils';
 import type { Today } from '@shared/schemas/today';
+import AttentionList from '@/components/today/AttentionList.vue';
 import FermentList from '@/components/today/FermentList.vue';
 import ReadyVessels from '@/components/today/ReadyVessels.vue';
 import VesselsPage from '@/pages/VesselsPage.vue';
@@ -70,5 +71,18 @@ describe('Vessels page', () => {
     const sent = api.callsTo('GET', `/api/cellars/${CELLAR_ID}/vessels`).at(-1)!.query;
     expect(sent.get('freeAndSanitised')).toBe(expected.freeAndSanitised);
     expect(sent.get('capacityL')).toBe(expected.capacityL);
+  });
+
+  it.each([
+    ['keeper', true],
+    ['hand', false],
+    ['guest', false],
+  ] as const)('shows a %s the way to the plans (the Settings section that sets what is due): %s', async (role, offered) => {
+    signIn(fakeApi(), role);
+    await mountInApp(AttentionList, `/c/${CELLAR_ID}/today`, {
+      props: { needsRacking: [], additionsDue: [], cellarId: CELLAR_ID, tasks: { today: '2026-12-04', items: [] } },
+    });
+    const link = document.querySelector('[data-test=today-plans-link]');
+    expect(link?.getAttribute('href') ?? null).toBe(offered ? `/c/${CELLAR_ID}/settings#plans` : null);
   });
 });
