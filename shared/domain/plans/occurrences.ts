@@ -3,6 +3,7 @@ import { CONDITION_LABELS, type PlanRule } from '../../schemas/plans';
 import type { Stage } from '../../schemas/batches';
 import { conditionSpans, stageStarts, vesselsEnd, type BatchFacts, type FactEvent } from './batch-facts';
 import { addPeriod, daysBetween } from './local-dates';
+import { daysWords, everyWords, periodWords } from './period-words';
 
 /** One dated occurrence of a rule, before the journal and people have had their say. */
 export interface Occurrence {
@@ -122,7 +123,7 @@ export function occurrencesOf(rule: PlanRule, facts: BatchFacts, horizon: string
       const endsOn = earliest(untilDate(rule, facts, anchor.on), leftVessels);
       if (!beforeEnd(dueOn, endsOn)) return [];
       const group = anchor.addition ? `${rule.what}:${anchor.addition.id}` : rule.what;
-      const amount = when.after.count === 0 ? 'on the day of' : `${when.after.count} ${when.after.unit} after`;
+      const amount = when.after.count === 0 ? 'on the day of' : `${periodWords(when.after)} after`;
       return [{ occurrence: anchor.ref, dueOn, reason: `${amount} ${anchor.words}`, addition: anchor.addition, group, endsOn }];
     });
   }
@@ -139,7 +140,7 @@ export function occurrencesOf(rule: PlanRule, facts: BatchFacts, horizon: string
         {
           occurrence: `${span.ref}.held`,
           dueOn: held,
-          reason: `the gravity has held for ${when.days} days`,
+          reason: `the gravity has held for ${daysWords(when.days)}`,
           addition: span.addition,
           group,
           endsOn: end,
@@ -151,11 +152,10 @@ export function occurrencesOf(rule: PlanRule, facts: BatchFacts, horizon: string
     for (let n = firstRepeatNear(first, when, from); ; n += 1) {
       const dueOn = addPeriod(first, when.every, n);
       if (dueOn > horizon || !beforeEnd(dueOn, end) || n > 40_000) break;
-      const unit = when.every.count === 1 ? when.every.unit.replace(/s$/, '') : `${when.every.count} ${when.every.unit}`;
       out.push({
         occurrence: `${span.ref}.${n}`,
         dueOn,
-        reason: `every ${unit} while ${span.addition ? `${span.addition.name} is in` : CONDITION_LABELS[when.while]}`,
+        reason: `${everyWords(when.every)} while ${span.addition ? `${span.addition.name} is in` : CONDITION_LABELS[when.while]}`,
         addition: span.addition,
         group,
         endsOn: end,

@@ -93,6 +93,16 @@ describe('computeTasks', () => {
     expect(keysDue(computeTasks(mead, facts('primary', []), { today: '2026-03-10', lookaheadDays: 30 }))).toEqual(keysDue(tasks));
   });
 
+  it('words a period of one unit in the singular in a task’s reason, and a repeat of one unit without the number', () => {
+    const plan = rules(
+      { id: 'after-a-month', what: 'milestone', when: { type: 'after', anchor: 'start', after: { count: 1, unit: 'months' } }, showDaysAhead: 0 },
+      { id: 'weekly', what: 'reading', when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'primary' }, showDaysAhead: 0 },
+    );
+    const tasks = computeTasks(plan, facts('primary', []), { today: '2026-03-10', lookaheadDays: 60 });
+    expect(tasks.find((t) => t.ruleId === 'after-a-month')!.reason).toBe('1 month after the start (2026-03-01)');
+    expect(tasks.find((t) => t.ruleId === 'weekly')!.reason).toMatch(/^every week while /);
+  });
+
   it('marks the open reading task done when a reading is logged in its window', () => {
     const tasks = computeTasks(mead, facts('primary', [{ kind: 'reading', id: 'r1', on: '2026-03-09', sg: 1.05 }]), {
       today: '2026-03-10',
