@@ -1,0 +1,43 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import type { Vessel } from '@shared/schemas/vessels';
+import VesselCard from '@/components/vessels/VesselCard.vue';
+import { fakeApi } from './support/fake-api';
+import { BATCH_ID, CELLAR_ID, VESSEL_ID, signIn } from './support/fixtures';
+import { mountInApp, pick } from './support/mount-in-app';
+
+/** A 30 L bucket holding 20 L: (30 − 20) / 30 = 33.3 % headspace. */
+const bucket = (stage: string): Vessel => ({
+  id: VESSEL_ID,
+  code: 'ABCDEFGH',
+  name: 'Fermenter 1',
+  kind: 'bucket',
+  material: 'plastic',
+  capacityL: 30,
+  state: 'holding',
+  sanitisedAt: null,
+  batch: { id: BATCH_ID, name: 'Test melomel', kind: 'melomel', stage },
+  volumeL: 20,
+  filledAt: '2026-11-01T12:00:00.000Z',
+  place: null,
+  notes: '',
+  version: 1,
+});
+
+afterEach(() => {
+  document.body.innerHTML = '';
+});
+
+// Primary needs room for its foam and its own gas protects it; headspace matters from the first racking (common practice).
+describe('a vessel in the phone’s list', () => {
+  it.each([
+    ['primary', false],
+    ['secondary', true],
+    ['bulk-ageing', true],
+  ])('with its batch in %s, warns of its 33.3 per cent headspace: %s', async (stage, warned) => {
+    signIn(fakeApi());
+    await mountInApp(VesselCard, `/c/${CELLAR_ID}/vessels`, { props: { vessel: bucket(stage), warnPercent: 5 } });
+    const figure = pick('[data-test=vessel-card-headspace]');
+    expect(figure.textContent).toContain('33.3 % headspace');
+    expect(figure.classList.contains('text-negative')).toBe(warned);
+  });
+});
