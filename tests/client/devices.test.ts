@@ -6,7 +6,7 @@ import DeviceDayItem from '@/components/devices/DeviceDayItem.vue';
 import DevicesCard from '@/components/devices/DevicesCard.vue';
 import { firstRows, timelineRows, withDeviceReadings } from '@/components/devices/device-series';
 import { fakeApi, type FakeApi } from './support/fake-api';
-import { BATCH_ID, CELLAR_ID, ENTRY_ID, VESSEL_ID, signIn } from './support/fixtures';
+import { BATCH_ID, CELLAR_ID, ENTRY_ID, VESSEL_ID, signIn, vessel } from './support/fixtures';
 import { mountInApp, pick } from './support/mount-in-app';
 
 const entry = (id: string, occurredAt: string): JournalEntry => ({
@@ -104,24 +104,7 @@ describe('Settings → Hydrometers', () => {
     api.on('GET', devicesPath, { body: [] });
     api.on('GET', `/api/cellars/${CELLAR_ID}/vessels`, {
       body: {
-        items: [
-          {
-            id: VESSEL_ID,
-            code: 'ABCDEFGH',
-            name: 'Fermenter 1',
-            kind: 'bucket',
-            material: 'plastic',
-            capacityL: 30,
-            state: 'holding',
-            sanitisedAt: null,
-            batch: { id: BATCH_ID, name: 'Test melomel', kind: 'melomel' },
-            volumeL: 20,
-            filledAt: '2026-11-01T12:00:00.000Z',
-            place: null,
-            notes: '',
-            version: 1,
-          },
-        ],
+        items: [vessel()],
         total: 1,
         page: 1,
         pageSize: 200,

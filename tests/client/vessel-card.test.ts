@@ -2,26 +2,11 @@ import { afterEach, describe, expect, it } from 'vitest';
 import type { Vessel } from '@shared/schemas/vessels';
 import VesselCard from '@/components/vessels/VesselCard.vue';
 import { fakeApi } from './support/fake-api';
-import { BATCH_ID, CELLAR_ID, VESSEL_ID, signIn } from './support/fixtures';
+import { BATCH_ID, CELLAR_ID, signIn, vessel } from './support/fixtures';
 import { mountInApp, pick } from './support/mount-in-app';
 
 /** A 30 L bucket holding 20 L: (30 − 20) / 30 = 33.3 % headspace. */
-const bucket = (stage: string): Vessel => ({
-  id: VESSEL_ID,
-  code: 'ABCDEFGH',
-  name: 'Fermenter 1',
-  kind: 'bucket',
-  material: 'plastic',
-  capacityL: 30,
-  state: 'holding',
-  sanitisedAt: null,
-  batch: { id: BATCH_ID, name: 'Test melomel', kind: 'melomel', stage },
-  volumeL: 20,
-  filledAt: '2026-11-01T12:00:00.000Z',
-  place: null,
-  notes: '',
-  version: 1,
-});
+const bucket = (stage: string): Vessel => vessel({ batch: { id: BATCH_ID, name: 'Test melomel', kind: 'melomel', stage } });
 
 afterEach(() => {
   document.body.innerHTML = '';

@@ -3,6 +3,7 @@ import { batchDetailSchema, type BatchDetail, type OperationResult } from '@shar
 import { batchPageSchema, type BatchSummary } from '@shared/schemas/batches';
 import { readingResultSchema, type ReadingResult } from '@shared/schemas/journal';
 import type { Role } from '@shared/roles';
+import { vesselSchema, type Vessel } from '@shared/schemas/vessels';
 import type { FakeApi } from './fake-api';
 
 /** Invented ids and names for the client tests (no real household). */
@@ -79,4 +80,25 @@ export function batchSummary(overrides: Partial<BatchSummary> = {}): BatchSummar
 
 export function batchPage(items: BatchSummary[] = [batchSummary()]) {
   return batchPageSchema.parse({ items, total: items.length, page: 1, pageSize: 25 });
+}
+
+/** A 30 L bucket holding 20 L of the test batch, checked against the shared schema. */
+export function vessel(overrides: Partial<Vessel> = {}): Vessel {
+  return vesselSchema.parse({
+    id: VESSEL_ID,
+    code: 'ABCDEFGH',
+    name: 'Fermenter 1',
+    kind: 'bucket',
+    material: 'plastic',
+    capacityL: 30,
+    state: 'holding',
+    sanitisedAt: null,
+    batch: { id: BATCH_ID, name: 'Test melomel', kind: 'melomel' },
+    volumeL: 20,
+    filledAt: '2026-11-01T12:00:00.000Z',
+    place: null,
+    notes: '',
+    version: 1,
+    ...overrides,
+  });
 }
