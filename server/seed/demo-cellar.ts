@@ -153,9 +153,10 @@ export async function seedDemoRecords(tx: EntityManager, people: { keeper: Actor
   await rack(
     'linden',
     34,
-    [['f1', 23]],
+    // Half a litre left on the lees, and the carboy filled into its neck (common practice).
+    [['f1', 27]],
     [
-      ['bigGlass', 17.5],
+      ['bigGlass', 22],
       ['demi1', 4.5],
     ],
   );
