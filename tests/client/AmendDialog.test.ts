@@ -72,3 +72,35 @@ describe('AmendDialog, the start’s volume', () => {
     expect(api.callsTo('POST', amendPath)[0].body).toEqual({ reason: 'measured the carboy again', changes: { volumeL: 18.5 } });
   });
 });
+
+describe('AmendDialog, a reading’s sample temperature', () => {
+  let api: FakeApi;
+  /** A reading taken at 20 °C, which is 68 °F (NIST SP 811, B.9: t/°F = 1.8 · t/°C + 32). */
+  const reading: JournalEntry = {
+    ...started,
+    payload: { kind: 'reading', sg: 1.05, correctedSg: 1.05, temperatureC: 20, calibrationC: 20, ph: null, vesselId: null },
+  };
+
+  beforeEach(() => {
+    api = fakeApi();
+    signIn(api);
+    api.on('POST', amendPath, { status: 201, body: operationResult() });
+  });
+
+  it('in US units shows it in °F, with the unit beside the figure, and sends the correction in °C', async () => {
+    localStorage.setItem('cellarwright.units', 'us');
+    await mountInApp(AmendDialog, `/c/${CELLAR_ID}/tasks`, { props: { modelValue: true, batchId: BATCH_ID, entry: reading } });
+    await vi.waitFor(() => pick('[data-test=amend-temperatureC]'));
+    const field = pick('[data-test=amend-temperatureC]').closest('.q-field')!;
+    expect(pick<HTMLInputElement>('[data-test=amend-temperatureC]').value).toBe('68');
+    expect(field.querySelector('.q-field__label')?.textContent).toBe('Sample temperature');
+    expect(field.querySelector('.q-field__suffix')?.textContent).toBe('°F');
+
+    await new DOMWrapper(pick<HTMLInputElement>('[data-test=amend-temperatureC]')).setValue('77');
+    await new DOMWrapper(pick<HTMLInputElement>('[data-test=amend-reason]')).setValue('the thermometer was in the sun');
+    pick('[data-test=amend-submit]').click();
+    await flushPromises();
+    // 77 °F = (77 − 32) × 5/9 = 25 °C.
+    expect(api.callsTo('POST', amendPath)[0].body).toMatchObject({ changes: { temperatureC: 25 } });
+  });
+});
