@@ -18,5 +18,8 @@ describe('deviceDayLine', () => {
     // 20 °C = 68 °F exactly (NIST SP 811, B.9).
     expect(deviceDayLine({ ...day, minTemperatureC: 20, maxTemperatureC: 20 }, 'us')).toBe('Hydrometer: 96 readings, 1.020 → 1.012, 68 °F');
     expect(deviceDayLine({ ...day, minTemperatureC: null, maxTemperatureC: null }, 'us')).toBe('Hydrometer: 96 readings, 1.020 → 1.012');
+    // Half a range is no range: said without a temperature rather than as "0–19 °C".
+    expect(deviceDayLine({ ...day, minTemperatureC: null }, 'metric')).toBe('Hydrometer: 96 readings, 1.020 → 1.012');
+    expect(deviceDayLine({ ...day, maxTemperatureC: null }, 'metric')).toBe('Hydrometer: 96 readings, 1.020 → 1.012');
   });
 });
