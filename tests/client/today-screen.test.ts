@@ -37,6 +37,8 @@ describe('Today', () => {
     const finished = pick('[data-test=today-finished]').textContent ?? '';
     expect(fermenting).toContain('Working one');
     expect(fermenting).not.toContain('Steady one');
+    // The last reading and when it was taken, apart: "1.010 (3 days ago)", not "1.010 3 days ago".
+    expect(fermenting).toMatch(/· 1\.010 \(.+ ago\)/);
     expect(finished).toContain('Steady one');
     // The Batch page's words (components/batches/fermentation-words.ts), not "Working" / "Done".
     expect(pick('[data-test=ferment-state-active]').textContent).toContain('Active');
