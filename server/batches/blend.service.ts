@@ -71,11 +71,11 @@ export async function blendBatches(actor: Actor, tx: EntityManager, request: Ble
   let overrideUsed = false;
   const targets = request.to.map((t) => ({ vessel: locked.get(t.vesselId)!, volumeL: t.volumeL }));
   for (const { vessel, volumeL } of targets) {
-    overrideUsed = (await checkFillTarget(tx, vessel, volumeL, cellar, overrideReason, now)) || overrideUsed;
+    overrideUsed = (await checkFillTarget(tx, vessel, volumeL, cellar, overrideReason, now, actor.units)) || overrideUsed;
   }
   const fromL = shares.reduce((sum, s) => sum + s.volumeL, 0);
   const toL = roundLitres(targets.reduce((sum, t) => sum + t.volumeL, 0));
-  refuseMoreThanSources(fromL, toL, 'blend');
+  refuseMoreThanSources(fromL, toL, 'blend', actor.units);
 
   const batches = tx.getRepository(Batch);
   const child = await batches.save(

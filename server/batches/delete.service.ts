@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { requireRole, type Actor } from '../core/actor';
-import { litres } from '../core/litres';
+import { volumeText } from '../core/litres';
 import { Batch } from '../entities/batch.entity';
 import { ConflictError } from '../http/errors';
 import { findBatch, lockBatch, vesselsHolding } from './batch-lookup';
@@ -16,7 +16,7 @@ export async function deleteBatch(actor: Actor, tx: EntityManager, batchId: stri
   const batch = await lockBatch(tx, actor.cellarId, batchId);
   const vessels = await vesselsHolding(tx, batch.id);
   if (vessels.length > 0) {
-    const list = vessels.map((v) => `${v.name} (${litres(v.volumeL ?? 0)} L)`).join(', ');
+    const list = vessels.map((v) => `${v.name} (${volumeText(v.volumeL ?? 0, actor.units)})`).join(', ');
     throw new ConflictError(`${batch.name} is still in ${list}. Rack, bottle or empty it before deleting the batch.`);
   }
   const [{ lots }]: { lots: number }[] = await tx.query(`SELECT COUNT(*)::int AS lots FROM bottle_lots WHERE batch_id = $1`, [batch.id]);

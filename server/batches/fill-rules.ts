@@ -2,7 +2,8 @@ import type { EntityManager } from 'typeorm';
 import { CAUTION_GLASS, headspace } from '../../shared/calc';
 import { headspaceIsRisk } from '../../shared/domain/headspace-rule';
 import { vesselState } from '../../shared/domain/vessel-state';
-import { litres } from '../core/litres';
+import type { UnitSystem } from '../../shared/calc';
+import { volumeText } from '../core/litres';
 import { Batch } from '../entities/batch.entity';
 import type { Cellar } from '../entities/cellar.entity';
 import type { Vessel } from '../entities/vessel.entity';
@@ -34,6 +35,7 @@ function notSanitisedMessage(vessel: Vessel, cellar: Cellar): string {
 /**
  * Checks that a vessel can take liquid: in use, empty, big enough, and sanitised within the
  * cellar's days (or, failing that, that the caller gave an override reason).
+ * @param units - the units its refusals are worded in (the actor's)
  * @returns true when the override reason was needed for this vessel
  */
 export async function checkFillTarget(
@@ -43,17 +45,20 @@ export async function checkFillTarget(
   cellar: Cellar,
   overrideReason: string | null,
   now: Date,
+  units: UnitSystem,
 ): Promise<boolean> {
   if (vessel.retiredAt) throw new ConflictError(`${vessel.name} is retired; choose a vessel in use.`, { vesselId: vessel.id });
   if (vessel.batchId) {
     const holding = await tx.getRepository(Batch).findOneBy({ id: vessel.batchId });
     throw new ConflictError(
-      `${vessel.name} already holds ${holding?.name ?? 'another batch'} (${litres(vessel.volumeL ?? 0)} L); choose an empty vessel.`,
+      `${vessel.name} already holds ${holding?.name ?? 'another batch'} (${volumeText(vessel.volumeL ?? 0, units)}); choose an empty vessel.`,
       { vesselId: vessel.id, currentVersion: vessel.version },
     );
   }
   if (volumeL > vessel.capacityL) {
-    throw new BadRequestError(`${vessel.name} holds ${litres(vessel.capacityL)} L; ${litres(volumeL)} L will not fit.`, { vesselId: vessel.id });
+    throw new BadRequestError(`${vessel.name} holds ${volumeText(vessel.capacityL, units)}; ${volumeText(volumeL, units)} will not fit.`, {
+      vesselId: vessel.id,
+    });
   }
   if (vesselState(vessel, cellar.sanitisedValidDays, now) === 'sanitised') return false;
   if (overrideReason) return true;
@@ -115,10 +120,10 @@ export function refuseSourceAsTarget(from: { vesselId: string }[], to: { vesselI
 }
 
 /** 400 when the targets are to receive more than the sources hold. */
-export function refuseMoreThanSources(fromL: number, toL: number, verb: string): void {
+export function refuseMoreThanSources(fromL: number, toL: number, verb: string, units: UnitSystem): void {
   if (toL > fromL + 1e-9) {
     throw new BadRequestError(
-      `You cannot ${verb} more than the source holds: the sources hold ${litres(fromL)} L, the targets would get ${litres(toL)} L.`,
+      `You cannot ${verb} more than the source holds: the sources hold ${volumeText(fromL, units)}, the targets would get ${volumeText(toL, units)}.`,
     );
   }
 }

@@ -47,11 +47,11 @@ export async function rackBatch(actor: Actor, tx: EntityManager, batchId: string
   let overrideUsed = false;
   const targets = request.to.map((t) => ({ vessel: locked.get(t.vesselId)!, volumeL: t.volumeL }));
   for (const { vessel, volumeL } of targets) {
-    overrideUsed = (await checkFillTarget(tx, vessel, volumeL, cellar, overrideReason, now)) || overrideUsed;
+    overrideUsed = (await checkFillTarget(tx, vessel, volumeL, cellar, overrideReason, now, actor.units)) || overrideUsed;
   }
   const fromL = sources.reduce((sum, v) => sum + (v.volumeL ?? 0), 0);
   const toL = targets.reduce((sum, t) => sum + t.volumeL, 0);
-  refuseMoreThanSources(fromL, toL, 'rack');
+  refuseMoreThanSources(fromL, toL, 'rack', actor.units);
 
   const from = sources.map((v) => vesselVolume(v, v.volumeL ?? 0));
   const repo = tx.getRepository(Vessel);

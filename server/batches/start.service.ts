@@ -38,7 +38,7 @@ export async function startBatch(actor: Actor, tx: EntityManager, request: Batch
   const overrideReason = request.override?.reason ?? null;
   let overrideUsed = false;
   for (const fill of request.vessels) {
-    const needed = await checkFillTarget(tx, locked.get(fill.vesselId)!, fill.volumeL, cellar, overrideReason, now);
+    const needed = await checkFillTarget(tx, locked.get(fill.vesselId)!, fill.volumeL, cellar, overrideReason, now, actor.units);
     overrideUsed ||= needed;
   }
 

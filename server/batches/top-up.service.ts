@@ -3,7 +3,7 @@ import type { z } from 'zod';
 import type { OperationResult } from '../../shared/schemas/batch-detail';
 import type { topUpRequestSchema } from '../../shared/schemas/journal';
 import { requireRole, type Actor } from '../core/actor';
-import { litres, roundLitres } from '../core/litres';
+import { roundLitres, volumeText } from '../core/litres';
 import { Vessel } from '../entities/vessel.entity';
 import { ConflictError } from '../http/errors';
 import { appendEntry } from '../journal/journal';
@@ -23,12 +23,13 @@ export function topUp(actor: Actor, tx: EntityManager, batchId: string, request:
   const ref = { vesselId: request.vesselId, expectedVersion: request.expectedVersion };
   return onBatch(actor, tx, batchId, { vessels: [ref], needsVessels: true }, async ({ tx, batch, cellar, vessels, at }) => {
     const vessel = vessels.get(request.vesselId)!;
+    const volume = (value: number) => volumeText(value, actor.units);
     const before = vessel.volumeL ?? 0;
     const after = roundLitres(before + request.volumeL);
     if (after > vessel.capacityL) {
       throw new ConflictError(
-        `${vessel.name} holds ${litres(before)} L of ${litres(vessel.capacityL)} L; ${litres(request.volumeL)} L more will not fit ` +
-          `(room for ${litres(vessel.capacityL - before)} L).`,
+        `${vessel.name} holds ${volume(before)} of ${volume(vessel.capacityL)}; ${volume(request.volumeL)} more will not fit ` +
+          `(room for ${volume(vessel.capacityL - before)}).`,
         { vesselId: vessel.id, currentVersion: vessel.version },
       );
     }

@@ -15,6 +15,7 @@ import {
 import type { BottleLot } from '../../shared/schemas/bottles';
 import type { bottleRequestSchema } from '../../shared/schemas/journal';
 import { requireRole, type Actor } from '../core/actor';
+import { volumeText } from '../core/litres';
 import { Batch } from '../entities/batch.entity';
 import { BottleCaseRow } from '../entities/bottle-case.entity';
 import { BottleLotRow } from '../entities/bottle-lot.entity';
@@ -39,7 +40,6 @@ export interface BottlingResult {
 const DAY_MS = 86_400_000;
 
 /** Litres as people write them: at most 3 decimals, no trailing zeros. */
-const litres = (value: number) => String(Number(value.toFixed(3)));
 
 /** The state the library sees, or null when there is nothing to judge by (no OG, no readings). */
 function judgeFermentation(batch: Batch, readings: GravityReading[], now: Date): FermentationState | null {
@@ -117,14 +117,17 @@ export async function bottleBatch(actor: Actor, tx: EntityManager, batchId: stri
   const fits = bottlesFrom({ volumeL, bottleMl: request.bottleMl });
   if (request.bottleCount > fits.bottles) {
     throw new BadRequestError(
-      `${request.bottleCount} bottles of ${request.bottleMl} mL need ${litres(bottledL)} L but the vessels hold ${litres(volumeL)} L` +
+      `${request.bottleCount} bottles of ${request.bottleMl} mL need ${volumeText(bottledL, actor.units)} but the vessels hold ${volumeText(volumeL, actor.units)}` +
         ` — enough for ${fits.bottles} bottle${fits.bottles === 1 ? '' : 's'}.`,
       { maxBottles: fits.bottles },
     );
   }
 
   // A split's state follows the must it came from: its parent's readings up to the split count too.
-  const readings = [...(await inheritedReadings(tx, batch.id)), ...(await batchReadings(tx, batch.id))].map((r) => ({ at: new Date(r.at), sg: r.correctedSg }));
+  const readings = [...(await inheritedReadings(tx, batch.id)), ...(await batchReadings(tx, batch.id))].map((r) => ({
+    at: new Date(r.at),
+    sg: r.correctedSg,
+  }));
   const state = judgeFermentation(batch, readings, now);
   if (state !== 'finished' && !request.confirmNotFinished) throw confirmationRequired(state);
 
@@ -185,7 +188,7 @@ export async function bottleBatch(actor: Actor, tx: EntityManager, batchId: stri
   const leftOver = bottlesFrom({ volumeL, bottleMl: request.bottleMl, lossL: bottledL });
   if (leftOver.bottles > 0) {
     warnings.push(
-      `${litres(lossL)} L was not bottled — enough for ${leftOver.bottles} more bottle${leftOver.bottles === 1 ? '' : 's'}. It is recorded as loss.`,
+      `${volumeText(lossL, actor.units)} was not bottled — enough for ${leftOver.bottles} more bottle${leftOver.bottles === 1 ? '' : 's'}. It is recorded as loss.`,
     );
   }
   if (lot.abvEstimate === null) warnings.push('No original gravity or reading is recorded, so the lot has no ABV estimate.');

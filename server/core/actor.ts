@@ -1,3 +1,4 @@
+import type { UnitSystem } from '../../shared/calc';
 import { roleAtLeast, type Role } from '../../shared/roles';
 import { ForbiddenError } from '../http/errors';
 
@@ -13,6 +14,8 @@ export interface MemberActor {
   cellarId: string;
   role: Role;
   userId: string;
+  /** The units its messages are worded in: the person's choice, sent with each request (metric when not said). */
+  units: UnitSystem;
 }
 
 /** What the cellar's own jobs are; each acts with the role a person doing it would need. */
@@ -25,14 +28,16 @@ export interface SystemActor {
   job: SystemJob;
   /** Journal entries it writes have no author. */
   userId: null;
+  /** Its messages are read by no one in particular: metric, as the records keep them. */
+  units: 'metric';
 }
 
-export function memberActor(cellarId: string, userId: string, role: Role): MemberActor {
-  return { kind: 'member', cellarId, userId, role };
+export function memberActor(cellarId: string, userId: string, role: Role, units: UnitSystem = 'metric'): MemberActor {
+  return { kind: 'member', cellarId, userId, role, units };
 }
 
 export function systemActor(cellarId: string, job: SystemJob, role: Role): SystemActor {
-  return { kind: 'system', cellarId, job, role, userId: null };
+  return { kind: 'system', cellarId, job, role, userId: null, units: 'metric' };
 }
 
 /**

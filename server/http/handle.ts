@@ -1,6 +1,7 @@
 import type { Request, RequestHandler, Response } from 'express';
 import type { DataSource, EntityManager } from 'typeorm';
 import { z, ZodError, type ZodType } from 'zod';
+import { UNITS_HEADER, unitSystemSchema } from '../../shared/schemas/cellars';
 import { memberActor, type Actor, type MemberActor } from '../core/actor';
 import { inTransaction } from '../core/unit-of-work';
 import { UnauthorizedError } from './errors';
@@ -54,10 +55,11 @@ export const ROUTE_SCHEMAS = Symbol('routeSchemas');
 
 const READ_METHODS = new Set(['GET', 'HEAD']);
 
-/** The member and cellar that cellarAccess checked and put on the request, as the services' actor. */
+/** The member and cellar that cellarAccess checked and put on the request, as the services' actor, in the units the request names. */
 export function actorFrom(req: Request): MemberActor {
   if (!req.user || !req.cellar) throw new UnauthorizedError();
-  return memberActor(req.cellar.id, req.user.id, req.cellar.role);
+  const units = unitSystemSchema.safeParse(req.get(UNITS_HEADER)).data ?? 'metric';
+  return memberActor(req.cellar.id, req.user.id, req.cellar.role, units);
 }
 
 /**

@@ -5,6 +5,7 @@ import type { CleaningState, Vessel as VesselDto, VesselDetail, VesselKind } fro
 import { recordAudit } from '../audit/audit-log';
 import { moveSummary } from '../audit/move-summary';
 import { requireRole, type Actor } from '../core/actor';
+import { volumeText } from '../core/litres';
 import { Cellar } from '../entities/cellar.entity';
 import { Vessel } from '../entities/vessel.entity';
 import { ConflictError, NotFoundError } from '../http/errors';
@@ -147,7 +148,7 @@ export async function updateVessel(actor: Actor, tx: EntityManager, vesselId: st
   if (changes.name !== undefined) await requireFreeVesselName(tx, cellarId, changes.name, vessel.id);
   if (changes.capacityL !== undefined && vessel.volumeL !== null && changes.capacityL < vessel.volumeL) {
     throw new ConflictError(
-      `${vessel.name} holds ${vessel.volumeL} L now, so its capacity cannot be less than that. Rack some out first, or check the number.`,
+      `${vessel.name} holds ${volumeText(vessel.volumeL, actor.units)} now, so its capacity cannot be less than that. Rack some out first, or check the number.`,
       { vesselId: vessel.id },
     );
   }

@@ -4,6 +4,13 @@ import { roleSchema } from '../roles';
 export const UNIT_SYSTEMS = ['metric', 'us'] as const;
 export const unitSystemSchema = z.enum(UNIT_SYSTEMS);
 
+/**
+ * The request header naming the units the person reads ("metric" or "us"), so that a message
+ * the server words ("Demijohn 4 holds 5.55 US gal …") reads in them. A display choice, like a
+ * language: a missing or unknown value is worded in metric, never refused.
+ */
+export const UNITS_HEADER = 'Units-Shown';
+
 function isTimeZone(value: string): boolean {
   try {
     new Intl.DateTimeFormat('en', { timeZone: value });
@@ -13,11 +20,7 @@ function isTimeZone(value: string): boolean {
   }
 }
 
-export const timeZoneSchema = z
-  .string()
-  .min(1)
-  .max(64)
-  .refine(isTimeZone, { message: 'must be an IANA time zone such as Europe/Berlin' });
+export const timeZoneSchema = z.string().min(1).max(64).refine(isTimeZone, { message: 'must be an IANA time zone such as Europe/Berlin' });
 
 export const cellarSchema = z.object({
   id: z.uuid(),

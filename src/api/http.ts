@@ -1,5 +1,7 @@
 import type { ZodType } from 'zod';
 import { v4 as uuidV4 } from 'uuid';
+import type { UnitSystem } from '@shared/calc';
+import { UNITS_HEADER } from '@shared/schemas/cellars';
 import { apiErrorSchema } from '@shared/schemas/common';
 import type { NewQueuedWrite } from '@/offline/outbox';
 import type { QueuedWriteKind } from '@/offline/queued-write';
@@ -53,6 +55,17 @@ export class ApiError extends Error {
   }
 }
 
+let unitsShown: (() => UnitSystem) | undefined;
+/** Where requests learn the units the person reads (wired in main.ts, from the preferences). */
+export function setUnitsSource(source: (() => UnitSystem) | undefined): void {
+  unitsShown = source;
+}
+
+/** The header that asks the server to word its messages ("… holds 5.55 US gal") in the person's units. */
+export function unitsHeader(): Record<string, string> {
+  return unitsShown ? { [UNITS_HEADER]: unitsShown() } : {};
+}
+
 let onUnauthorized: (() => void) | undefined;
 /** Called when any request answers 401 (the session ended). */
 export function setUnauthorizedHandler(handler: () => void): void {
@@ -102,8 +115,8 @@ export async function request<T>(method: Method, url: string, schema?: ZodType<T
         credentials: 'same-origin',
         headers:
           body === undefined
-            ? { accept: 'application/json', ...headers }
-            : { accept: 'application/json', 'content-type': 'application/json', ...headers },
+            ? { accept: 'application/json', ...unitsHeader(), ...headers }
+            : { accept: 'application/json', 'content-type': 'application/json', ...unitsHeader(), ...headers },
         body: body === undefined ? undefined : JSON.stringify(body),
       }));
   } catch {

@@ -1,5 +1,5 @@
 import { importPreviewSchema, importResultSchema, type ImportPreview, type ImportResult, type ImportTarget } from '@shared/schemas/exchange';
-import { errorFromAnswer, offlineError, cellarPath, withQuery } from './http';
+import { errorFromAnswer, offlineError, cellarPath, unitsHeader, withQuery } from './http';
 
 /** How much of a file the preview sends: enough for the headers and first rows. */
 const PREVIEW_BYTES = 64 * 1024;
@@ -20,7 +20,12 @@ export interface ImportChoices {
 async function sendCsv(url: string, body: Blob): Promise<unknown> {
   let res: Response;
   try {
-    res = await fetch(url, { method: 'POST', credentials: 'same-origin', headers: { accept: 'application/json', 'content-type': 'text/csv' }, body });
+    res = await fetch(url, {
+      method: 'POST',
+      credentials: 'same-origin',
+      headers: { accept: 'application/json', 'content-type': 'text/csv', ...unitsHeader() },
+      body,
+    });
   } catch {
     throw offlineError();
   }

@@ -1,4 +1,4 @@
-import { errorFromAnswer } from '@/api/http';
+import { errorFromAnswer, unitsHeader } from '@/api/http';
 import type { QueuedWrite, SendOutcome } from './queued-write';
 
 /**
@@ -12,7 +12,7 @@ export async function sendQueuedWrite(write: QueuedWrite): Promise<SendOutcome> 
     res = await fetch(write.url, {
       method: write.method,
       credentials: 'same-origin',
-      headers: { accept: 'application/json', 'content-type': 'application/json', 'Idempotency-Key': write.id },
+      headers: { accept: 'application/json', 'content-type': 'application/json', ...unitsHeader(), 'Idempotency-Key': write.id },
       body: JSON.stringify(write.body),
     });
   } catch {

@@ -28,7 +28,10 @@ const rack = (from: { id: string }[], to: [{ id: string }, number][], extra: Rec
 
 describe('POST /batches/:batchId/rackings', () => {
   it('empties the source (left dirty), fills the target, journals the loss and warns about headspace and glass', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [22], { startedOn: '2026-01-02' });
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [22], { startedOn: '2026-01-02' });
     const target = await sanitisedVessel(ds, crew.cellar.id, { name: 'Fermenter 2', capacityL: 23, material: 'glass' });
     const sourceBefore = await vesselRow(ds, source.id);
     const targetBefore = await vesselRow(ds, target.id);
@@ -61,7 +64,10 @@ describe('POST /batches/:batchId/rackings', () => {
   });
 
   it('moves primary → secondary after the first racking → bulk ageing after the second', async () => {
-    const { result, vessels: [first] } = await batchInVessels(ds, crew, [20], {}, { material: 'plastic', kind: 'bucket' });
+    const {
+      result,
+      vessels: [first],
+    } = await batchInVessels(ds, crew, [20], {}, { material: 'plastic', kind: 'bucket' });
     expect(result.batch.stage).toBe('primary');
     const second = await sanitisedVessel(ds, crew.cellar.id, { material: 'plastic', capacityL: 19.5 });
     const third = await sanitisedVessel(ds, crew.cellar.id, { material: 'plastic', capacityL: 19 });
@@ -84,24 +90,47 @@ describe('POST /batches/:batchId/rackings', () => {
     expect(merged.body.batch.journal[0].payload.lossL).toBe(0.3);
     const a = await sanitisedVessel(ds, crew.cellar.id, { capacityL: 4.5, material: 'plastic' });
     const b = await sanitisedVessel(ds, crew.cellar.id, { capacityL: 4.5, material: 'plastic' });
-    const split = await crew.as.hand.post(rackings(result.batch.id)).send(rack([big], [[a, 4.1], [b, 4]]));
+    const split = await crew.as.hand.post(rackings(result.batch.id)).send(
+      rack(
+        [big],
+        [
+          [a, 4.1],
+          [b, 4],
+        ],
+      ),
+    );
     expect(split.status).toBe(201);
     expect(split.body.batch).toMatchObject({ volumeL: 8.1, vesselCount: 2 });
   });
 
   it('refuses to rack more than the source holds (400) and changes nothing', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [18]);
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [18]);
     const target = await sanitisedVessel(ds, crew.cellar.id);
     const res = await crew.as.hand.post(rackings(result.batch.id)).send(rack([source], [[target, 18.5]]));
     expect(res.status).toBe(400);
     expect(res.body.message).toBe('You cannot rack more than the source holds: the sources hold 18 L, the targets would get 18.5 L.');
+    // Worded in US units when the request asks (1 US gal = 3.785411784 L, NIST Handbook 44): 18 L = 4.755 gal, 18.5 L = 4.887 gal.
+    const inUs = await crew.as.hand
+      .post(rackings(result.batch.id))
+      .set('Units-Shown', 'us')
+      .send(rack([source], [[target, 18.5]]));
+    expect(inUs.body.message).toBe('You cannot rack more than the source holds: the sources hold 4.76 US gal, the targets would get 4.89 US gal.');
     expect((await vesselRow(ds, source.id)).batch_id).toBe(result.batch.id);
     expect((await vesselRow(ds, target.id)).batch_id).toBeNull();
   });
 
   it('refuses a target that holds something, is retired, too small, or also a source', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [18]);
-    const { result: neighbour, vessels: [taken] } = await batchInVessels(ds, crew, [10]);
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [18]);
+    const {
+      result: neighbour,
+      vessels: [taken],
+    } = await batchInVessels(ds, crew, [10]);
     const holding = await crew.as.hand.post(rackings(result.batch.id)).send(rack([source], [[taken, 10]]));
     expect(holding.status).toBe(409);
     expect(holding.body.message).toBe(`${taken.name} already holds ${neighbour.batch.name} (10 L); choose an empty vessel.`);
@@ -115,6 +144,17 @@ describe('POST /batches/:batchId/rackings', () => {
     const tooSmall = await crew.as.hand.post(rackings(result.batch.id)).send(rack([source], [[small, 5]]));
     expect(tooSmall.status).toBe(400);
     expect(tooSmall.body.message).toBe('Small jug holds 4 L; 5 L will not fit.');
+    // 4 L = 1.057 US gal, 5 L = 1.321 US gal, 10 L = 2.642 US gal (1 US gal = 3.785411784 L, NIST Handbook 44).
+    const tooSmallInUs = await crew.as.hand
+      .post(rackings(result.batch.id))
+      .set('Units-Shown', 'us')
+      .send(rack([source], [[small, 5]]));
+    expect(tooSmallInUs.body.message).toBe('Small jug holds 1.06 US gal; 1.32 US gal will not fit.');
+    const holdingInUs = await crew.as.hand
+      .post(rackings(result.batch.id))
+      .set('Units-Shown', 'us')
+      .send(rack([source], [[taken, 10]]));
+    expect(holdingInUs.body.message).toBe(`${taken.name} already holds ${neighbour.batch.name} (2.64 US gal); choose an empty vessel.`);
 
     const self = await crew.as.hand.post(rackings(result.batch.id)).send(rack([source], [[source, 10]]));
     expect(self.status).toBe(400);
@@ -123,7 +163,10 @@ describe('POST /batches/:batchId/rackings', () => {
   });
 
   it('refuses a dirty or lapsed target without a reason; with one it racks and journals the reason', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [18]);
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [18]);
     const dirty = await makeVessel(ds, crew.cellar.id, { name: 'Dirty demijohn', cleaningState: 'dirty' });
     const lapsed = await sanitisedVessel(ds, crew.cellar.id, { name: 'Lapsed demijohn' });
     await sanitisedDaysAgo(ds, lapsed.id, 8);
@@ -135,14 +178,21 @@ describe('POST /batches/:batchId/rackings', () => {
     expect(lapsedRes.status).toBe(409);
     expect(lapsedRes.body.message).toMatch(/^Lapsed demijohn was sanitised on \d{4}-\d\d-\d\d, more than 7 days ago/);
 
-    const allowed = await crew.as.hand.post(rackings(result.batch.id)).send(rack([source], [[dirty, 17]], { override: { reason: 'Steamed it, no sanitiser left' } }));
+    const allowed = await crew.as.hand
+      .post(rackings(result.batch.id))
+      .send(rack([source], [[dirty, 17]], { override: { reason: 'Steamed it, no sanitiser left' } }));
     expect(allowed.status).toBe(201);
     expect(allowed.body.batch.journal[0].payload).toMatchObject({ kind: 'racked', override: 'Steamed it, no sanitiser left' });
   });
 
   it('refuses a source that does not hold this batch, a stale version, and a batch in no vessel', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [18]);
-    const { vessels: [elsewhere] } = await batchInVessels(ds, crew, [10]);
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [18]);
+    const {
+      vessels: [elsewhere],
+    } = await batchInVessels(ds, crew, [10]);
     const target = await sanitisedVessel(ds, crew.cellar.id);
     const wrong = await crew.as.hand.post(rackings(result.batch.id)).send(rack([elsewhere], [[target, 9]]));
     expect(wrong.status).toBe(409);
@@ -161,11 +211,17 @@ describe('POST /batches/:batchId/rackings', () => {
   });
 
   it('answers 403 to a Guest, 404 for another cellar’s batch and 400 for a racking with no target', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [18]);
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [18]);
     const target = await sanitisedVessel(ds, crew.cellar.id);
     const guest = await crew.as.guest.post(rackings(result.batch.id)).send(rack([source], [[target, 17]]));
     expect(guest.status).toBe(403);
-    const { result: theirs, vessels: [theirSource] } = await batchInVessels(ds, other, [18]);
+    const {
+      result: theirs,
+      vessels: [theirSource],
+    } = await batchInVessels(ds, other, [18]);
     const foreign = await crew.as.hand.post(rackings(theirs.batch.id)).send(rack([theirSource], [[target, 17]]));
     expect(foreign.status).toBe(404);
     const noTarget = await crew.as.hand.post(rackings(result.batch.id)).send({ from: [{ vesselId: source.id }], to: [] });
@@ -175,7 +231,10 @@ describe('POST /batches/:batchId/rackings', () => {
   });
 
   it('dates a racking when told, and refuses one before the batch started or in the future', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [18], { startedOn: '2026-01-05' });
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [18], { startedOn: '2026-01-05' });
     const target = await sanitisedVessel(ds, crew.cellar.id);
     const early = await crew.as.hand.post(rackings(result.batch.id)).send(rack([source], [[target, 17]], { at: '2026-01-04T10:00:00Z' }));
     expect(early.status).toBe(400);
@@ -190,7 +249,10 @@ describe('POST /batches/:batchId/rackings', () => {
 
 describe('two people racking the same vessel at once', () => {
   it('lets exactly one win; the other gets 409 naming the vessel and what it is now', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [20], {}, { name: 'Fermenter A' });
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [20], {}, { name: 'Fermenter A' });
     const left = await sanitisedVessel(ds, crew.cellar.id, { name: 'Carboy left' });
     const right = await sanitisedVessel(ds, crew.cellar.id, { name: 'Carboy right' });
     const [first, second] = await Promise.all([
@@ -199,9 +261,13 @@ describe('two people racking the same vessel at once', () => {
     ]);
     expect([first.status, second.status].sort()).toEqual([201, 409]);
     const loser = first.status === 409 ? first : second;
-    expect(loser.body.message).toMatch(/^Fermenter A changed while you were working: it is now empty and dirty \(changed .* UTC\)\. Reload and try again\.$/);
+    expect(loser.body.message).toMatch(
+      /^Fermenter A changed while you were working: it is now empty and dirty \(changed .* UTC\)\. Reload and try again\.$/,
+    );
 
-    const [{ count }] = await ds.query(`SELECT COUNT(*)::int AS count FROM journal_entries WHERE batch_id = $1 AND kind = 'racked'`, [result.batch.id]);
+    const [{ count }] = await ds.query(`SELECT COUNT(*)::int AS count FROM journal_entries WHERE batch_id = $1 AND kind = 'racked'`, [
+      result.batch.id,
+    ]);
     expect(count).toBe(1);
     expect(await vesselRow(ds, source.id)).toMatchObject({ batch_id: null, volume_l: null, cleaning_state: 'dirty' });
     const winnerTarget = first.status === 201 ? left : right;
@@ -211,8 +277,14 @@ describe('two people racking the same vessel at once', () => {
   });
 
   it('keeps a target two rackings race for to the first one', async () => {
-    const { result: a, vessels: [sourceA] } = await batchInVessels(ds, crew, [15], { name: 'Race batch A' });
-    const { result: b, vessels: [sourceB] } = await batchInVessels(ds, crew, [15], { name: 'Race batch B' });
+    const {
+      result: a,
+      vessels: [sourceA],
+    } = await batchInVessels(ds, crew, [15], { name: 'Race batch A' });
+    const {
+      result: b,
+      vessels: [sourceB],
+    } = await batchInVessels(ds, crew, [15], { name: 'Race batch B' });
     const shared = await sanitisedVessel(ds, crew.cellar.id, { name: 'Only free carboy' });
     const [first, second] = await Promise.all([
       crew.as.hand.post(rackings(a.batch.id)).send(rack([sourceA], [[shared, 14]])),
@@ -221,7 +293,9 @@ describe('two people racking the same vessel at once', () => {
     expect([first.status, second.status].sort()).toEqual([201, 409]);
     const loser = first.status === 409 ? first : second;
     expect(loser.body.message).toMatch(/^Only free carboy already holds Race batch [AB] \(14 L\)/);
-    const [{ count }] = await ds.query(`SELECT COUNT(*)::int AS count FROM vessels WHERE id = ANY($1) AND batch_id IS NOT NULL`, [[sourceA.id, sourceB.id, shared.id]]);
+    const [{ count }] = await ds.query(`SELECT COUNT(*)::int AS count FROM vessels WHERE id = ANY($1) AND batch_id IS NOT NULL`, [
+      [sourceA.id, sourceB.id, shared.id],
+    ]);
     expect(count).toBe(2);
   });
 });
@@ -229,7 +303,10 @@ describe('two people racking the same vessel at once', () => {
 // fillVessel is used to set up a vessel that holds a batch without the API, as another writer would.
 describe('a vessel filled behind the API’s back', () => {
   it('is refused as a target by what it holds now', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [12]);
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [12]);
     const target = await sanitisedVessel(ds, crew.cellar.id, { name: 'Sneaky carboy' });
     const intruder = await makeBatch(ds, crew.cellar.id, { name: 'Intruder cider' });
     await fillVessel(ds, target.id, intruder.id, 5);

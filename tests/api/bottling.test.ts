@@ -1,12 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import {
-  abvBy,
-  bottlesFrom,
-  CAUTION_BOTTLE_PRESSURE,
-  CAUTION_SULFITES,
-  casesFrom,
-  fermentationState,
-} from '../../shared/calc';
+import { abvBy, bottlesFrom, CAUTION_BOTTLE_PRESSURE, CAUTION_SULFITES, casesFrom, fermentationState } from '../../shared/calc';
 import { labelCodeSchema } from '../../shared/schemas/vessels';
 import { Batch } from '../../server/entities/batch.entity';
 import { BottleLotRow } from '../../server/entities/bottle-lot.entity';
@@ -136,7 +129,15 @@ describe('bottling a finished batch', () => {
     expect(res.status).toBe(201);
 
     const { lot } = res.body;
-    expect(lot).toMatchObject({ batchId: batch.id, batchName: batch.name, bottleCount, bottlesLeft: bottleCount, bottleMl: 750, closure: 'screw-cap', sulfiteAdded: true });
+    expect(lot).toMatchObject({
+      batchId: batch.id,
+      batchName: batch.name,
+      bottleCount,
+      bottlesLeft: bottleCount,
+      bottleMl: 750,
+      closure: 'screw-cap',
+      sulfiteAdded: true,
+    });
     expect(lot.abvEstimate).toBe(Math.round(abvBy(OG, FINISHED.at(-1)!.sg) * 10) / 10);
     const { cases, loose } = casesFrom(bottleCount, perCase);
     const expectedSizes = [...Array<number>(cases).fill(perCase), ...(loose ? [loose] : [])];
@@ -157,7 +158,13 @@ describe('bottling a finished batch', () => {
     const after = await ds.getRepository(Batch).findOneByOrFail({ id: batch.id });
     expect(after.stage).toBe('bottled');
     const entry = await ds.getRepository(JournalEntryRow).findOneByOrFail({ batchId: batch.id, kind: 'bottled' });
-    expect(entry.payload).toMatchObject({ lotId: lot.id, lotCode: lot.code, bottleCount, caseCount: expectedSizes.length, confirmedNotFinished: false });
+    expect(entry.payload).toMatchObject({
+      lotId: lot.id,
+      lotCode: lot.code,
+      bottleCount,
+      caseCount: expectedSizes.length,
+      confirmedNotFinished: false,
+    });
     const payload = entry.payload as { lossL: number; from: { vesselId: string }[] };
     expect(payload.lossL).toBeCloseTo(15 + 7.5 - (bottleCount * 750) / 1000, 3);
     expect(payload.from.map((f) => f.vesselId).sort()).toEqual(vessels.map((v) => v.id).sort());
@@ -177,6 +184,13 @@ describe('bottling requests that cannot be right', () => {
     const res = await as.hand.post(bottlings(crew.cellar.id, batch.id)).send(bottleRequest(vessels, { bottleCount: 42, confirmNotFinished: true }));
     expect(res.status).toBe(400);
     expect(res.body.message).toContain('42 bottles of 750 mL need 31.5 L but the vessels hold 30 L');
+    // In US units when asked (1 US gal = 3.785411784 L, NIST Handbook 44): 31.5 L = 8.321 gal, 30 L = 7.925 gal;
+    // bottle sizes stay in mL in both systems.
+    const inUs = await as.hand
+      .post(bottlings(crew.cellar.id, batch.id))
+      .set('Units-Shown', 'us')
+      .send(bottleRequest(vessels, { bottleCount: 42, confirmNotFinished: true }));
+    expect(inUs.body.message).toContain('42 bottles of 750 mL need 8.32 US gal but the vessels hold 7.93 US gal');
     expect(res.body.maxBottles).toBe(bottlesFrom({ volumeL: 30, bottleMl: 750 }).bottles);
     const vessel = await ds.getRepository(Vessel).findOneByOrFail({ id: vessels[0].id });
     expect(vessel.volumeL).toBe(30);

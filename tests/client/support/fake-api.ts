@@ -7,6 +7,7 @@ export interface ApiCall {
   query: URLSearchParams;
   /** The JSON body parsed back, or what was sent when it was not JSON (a FormData). */
   body: unknown;
+  headers: Headers;
 }
 
 /** What the fake server answers: a status (200 unless said) and a JSON body. */
@@ -30,12 +31,14 @@ export function fakeApi() {
     const url = new URL(String(input), 'http://cellar.test');
     const method = (init.method ?? 'GET').toUpperCase();
     const body = typeof init.body === 'string' ? JSON.parse(init.body) : (init.body ?? undefined);
-    const call: ApiCall = { method, path: url.pathname, query: url.searchParams, body };
+    const call: ApiCall = { method, path: url.pathname, query: url.searchParams, body, headers: new Headers(init.headers) };
     calls.push(call);
     const route = [...routes]
       .reverse()
       .find((r) => r.method === method && (typeof r.path === 'string' ? r.path === url.pathname : r.path.test(url.pathname)));
-    const answer = route ? await route.handler(call) : { status: 404, body: { error: 'not_found', message: `Nothing at ${method} ${url.pathname}.` } };
+    const answer = route
+      ? await route.handler(call)
+      : { status: 404, body: { error: 'not_found', message: `Nothing at ${method} ${url.pathname}.` } };
     const status = answer.status ?? 200;
     return new Response(status === 204 ? null : JSON.stringify(answer.body ?? {}), {
       status,
