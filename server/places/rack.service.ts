@@ -39,7 +39,7 @@ function occupantOf(row: OccupantRow, now: Date): ShelfDto['occupants'][number] 
       row.sanitisedValidDays,
       now,
     );
-    return { slot: row.slot, vesselId: row.vesselId, caseId: null, label: row.vesselName!, state };
+    return { slot: row.slot, vesselId: row.vesselId, caseId: null, label: row.vesselName!, state, caseNumber: null, batchName: null };
   }
   const bottles = row.bottlesLeft ?? 0;
   return {
@@ -48,6 +48,8 @@ function occupantOf(row: OccupantRow, now: Date): ShelfDto['occupants'][number] 
     caseId: row.caseId,
     label: `Case ${row.caseNumber} of ${row.caseBatchName}`,
     state: `${bottles} ${bottles === 1 ? 'bottle' : 'bottles'}`,
+    caseNumber: row.caseNumber,
+    batchName: row.caseBatchName,
   };
 }
 

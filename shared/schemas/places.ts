@@ -10,8 +10,13 @@ export const shelfSchema = z.object({
       slot: z.number().int(),
       vesselId: z.uuid().nullable(),
       caseId: z.uuid().nullable(),
+      /** "Jug B", "Case 2 of Elderflower mead": what the thing is called in a sentence or a list. */
       label: z.string(),
+      /** A vessel's state ("sanitised", "holding", …) or a case's bottles ("11 bottles"). */
       state: z.string(),
+      /** For a case, its number and the batch its bottles hold: a small tile shows the batch first. */
+      caseNumber: z.number().int().nullable(),
+      batchName: z.string().nullable(),
     }),
   ),
 });
@@ -44,9 +49,7 @@ export const rackUpdateSchema = z.object({
 
 /** Where to put a thing; `null` takes it off its shelf. */
 export const moveSchema = z.object({
-  to: z
-    .object({ shelfId: z.uuid(), slot: z.number().int().min(1, 'slots start at 1') })
-    .nullable(),
+  to: z.object({ shelfId: z.uuid(), slot: z.number().int().min(1, 'slots start at 1') }).nullable(),
   expectedVersion: z.number().int().optional(),
 });
 export type MoveRequest = z.infer<typeof moveSchema>;

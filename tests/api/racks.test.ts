@@ -41,7 +41,10 @@ describe('POST /racks', () => {
   });
 
   it('refuses a second rack of the same name in the cellar, not in another', async () => {
-    await as.hand.post(racks()).send({ name: 'Twin rack', shelves: [2] }).expect(201);
+    await as.hand
+      .post(racks())
+      .send({ name: 'Twin rack', shelves: [2] })
+      .expect(201);
     const again = await as.hand.post(racks()).send({ name: 'Twin rack', shelves: [3] });
     expect(again.status).toBe(409);
     expect(again.body.message).toMatch(/already has a rack called "Twin rack"/);
@@ -95,15 +98,31 @@ describe('GET /racks', () => {
     const north = list[1];
     expect(north.shelves.map((s) => s.number)).toEqual([1, 2]);
     expect(north.shelves[0].occupants).toEqual([
-      { slot: 1, vesselId: expect.any(String), caseId: null, label: 'Jug B', state: 'sanitised' },
-      { slot: 3, vesselId: expect.any(String), caseId: null, label: 'Carboy A', state: 'holding' },
+      { slot: 1, vesselId: expect.any(String), caseId: null, label: 'Jug B', state: 'sanitised', caseNumber: null, batchName: null },
+      { slot: 3, vesselId: expect.any(String), caseId: null, label: 'Carboy A', state: 'holding', caseNumber: null, batchName: null },
     ]);
     expect(north.shelves[1].occupants).toEqual([
-      { slot: 1, vesselId: null, caseId: expect.any(String), label: 'Case 2 of Elderflower mead', state: '11 bottles' },
-      { slot: 2, vesselId: expect.any(String), caseId: null, label: 'Jug C', state: 'clean' },
+      {
+        slot: 1,
+        vesselId: null,
+        caseId: expect.any(String),
+        label: 'Case 2 of Elderflower mead',
+        state: '11 bottles',
+        caseNumber: 2,
+        batchName: 'Elderflower mead',
+      },
+      { slot: 2, vesselId: expect.any(String), caseId: null, label: 'Jug C', state: 'clean', caseNumber: null, batchName: null },
     ]);
     expect(list[0].shelves[0].occupants).toEqual([
-      { slot: 1, vesselId: null, caseId: expect.any(String), label: 'Case 3 of Elderflower mead', state: '1 bottle' },
+      {
+        slot: 1,
+        vesselId: null,
+        caseId: expect.any(String),
+        label: 'Case 3 of Elderflower mead',
+        state: '1 bottle',
+        caseNumber: 3,
+        batchName: 'Elderflower mead',
+      },
     ]);
   });
 
