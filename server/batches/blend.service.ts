@@ -36,7 +36,7 @@ interface Share {
 
 /** Locks the parents (in id order, after the vessels) and sums what each gives to the blend. */
 async function lockShares(tx: EntityManager, actor: Actor, sources: Vessel[]): Promise<Share[]> {
-  for (const vessel of sources) if (!vessel.batchId) throw await vesselChangedError(tx, vessel);
+  for (const vessel of sources) if (!vessel.batchId) throw await vesselChangedError(tx, vessel, actor.units);
   const ids = [...new Set(sources.map((v) => v.batchId as string))].sort();
   if (ids.length < 2) throw new ConflictError('A blend needs vessels of at least two batches. To move one batch into other vessels, rack it.');
   const shares: Share[] = [];
@@ -59,7 +59,7 @@ export async function blendBatches(actor: Actor, tx: EntityManager, request: Ble
   requireRole(actor, 'hand');
   refuseSourceAsTarget(request.from, request.to);
   const now = new Date();
-  const locked = await lockVessels(tx, actor.cellarId, [...request.from, ...request.to]);
+  const locked = await lockVessels(tx, actor, [...request.from, ...request.to]);
   const sources = request.from.map((f) => locked.get(f.vesselId)!);
   const shares = await lockShares(tx, actor, sources);
   const cellar = await loadCellar(tx, actor.cellarId);

@@ -16,8 +16,8 @@ export const vesselVolume = (vessel: Vessel, volumeL: number) => ({ vesselId: ve
 const day = (d: Date) => d.toISOString().slice(0, 10);
 
 /** 409 naming the vessel unless it holds the batch now (someone else may have emptied it). */
-export async function requireHolds(tx: EntityManager, vessel: Vessel, batch: Batch): Promise<void> {
-  if (vessel.batchId !== batch.id) throw await vesselChangedError(tx, vessel);
+export async function requireHolds(tx: EntityManager, vessel: Vessel, batch: Batch, units: UnitSystem): Promise<void> {
+  if (vessel.batchId !== batch.id) throw await vesselChangedError(tx, vessel, units);
 }
 
 function notSanitisedMessage(vessel: Vessel, cellar: Cellar): string {

@@ -43,10 +43,10 @@ export async function onBatch(
 ): Promise<OperationResult> {
   const now = new Date();
   await findBatch(tx, actor.cellarId, batchId);
-  const vessels = await lockVessels(tx, actor.cellarId, options.vessels ?? []);
+  const vessels = await lockVessels(tx, actor, options.vessels ?? []);
   const batch = await lockBatch(tx, actor.cellarId, batchId);
   if (options.needsVessels) await requireInVessels(tx, batch);
-  for (const vessel of vessels.values()) await requireHolds(tx, vessel, batch);
+  for (const vessel of vessels.values()) await requireHolds(tx, vessel, batch, actor.units);
   const cellar = await loadCellar(tx, actor.cellarId);
   const at = (requested: string | undefined) => occurredAt(requested, now, batch, cellar.timeZone);
   const { entryId, warnings = [] } = await work({ tx, batch, cellar, now, vessels, at });

@@ -34,7 +34,7 @@ export async function rackBatch(actor: Actor, tx: EntityManager, batchId: string
   refuseSourceAsTarget(request.from, request.to);
   const now = new Date();
   await findBatch(tx, actor.cellarId, batchId);
-  const locked = await lockVessels(tx, actor.cellarId, [...request.from, ...request.to]);
+  const locked = await lockVessels(tx, actor, [...request.from, ...request.to]);
   const batch = await lockBatch(tx, actor.cellarId, batchId);
   await requireInVessels(tx, batch);
   const cellar = await loadCellar(tx, actor.cellarId);
@@ -42,7 +42,7 @@ export async function rackBatch(actor: Actor, tx: EntityManager, batchId: string
 
   // Re-checked on the locked rows: a racking that committed while we waited shows here.
   const sources = request.from.map((f) => locked.get(f.vesselId)!);
-  for (const vessel of sources) await requireHolds(tx, vessel, batch);
+  for (const vessel of sources) await requireHolds(tx, vessel, batch, actor.units);
   const overrideReason = request.override?.reason ?? null;
   let overrideUsed = false;
   const targets = request.to.map((t) => ({ vessel: locked.get(t.vesselId)!, volumeL: t.volumeL }));

@@ -24,7 +24,7 @@ export async function addReading(actor: Actor, tx: EntityManager, batchId: strin
   if (request.vesselId && !namedVessel) throw new NotFoundError('No such vessel in this cellar.');
   if (!inVessels) throw notInVesselsError(batch);
   if (namedVessel && namedVessel.batchId !== batch.id) {
-    throw await vesselChangedError(tx, await tx.getRepository(Vessel).findOneByOrFail({ id: namedVessel.id }));
+    throw await vesselChangedError(tx, await tx.getRepository(Vessel).findOneByOrFail({ id: namedVessel.id }), actor.units);
   }
   const at = occurredAt(request.at, now, batch, timeZone);
   const correctedSg = recordedGravity(request.sg, request.temperatureC, request.calibrationC);

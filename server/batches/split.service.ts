@@ -29,13 +29,13 @@ export type SplitRequest = Omit<z.output<typeof splitRequestSchema>, 'kind'> & {
 export async function splitBatch(actor: Actor, tx: EntityManager, batchId: string, request: SplitRequest): Promise<OperationResult> {
   requireRole(actor, 'hand');
   await findBatch(tx, actor.cellarId, batchId);
-  const locked = await lockVessels(tx, actor.cellarId, request.vessels);
+  const locked = await lockVessels(tx, actor, request.vessels);
   const parent = await lockBatch(tx, actor.cellarId, batchId);
   const holding = await requireInVessels(tx, parent);
   const cellar = await loadCellar(tx, actor.cellarId);
   const at = occurredAt(request.at, new Date(), parent, cellar.timeZone);
   const moving = request.vessels.map((ref) => locked.get(ref.vesselId)!);
-  for (const vessel of moving) await requireHolds(tx, vessel, parent);
+  for (const vessel of moving) await requireHolds(tx, vessel, parent, actor.units);
   if (moving.length >= holding.length) {
     throw new ConflictError(`A split must leave at least one vessel with ${parent.name}. To rename the whole batch, edit it instead.`);
   }

@@ -34,7 +34,7 @@ export async function startBatch(actor: Actor, tx: EntityManager, request: Batch
   if (request.startedOn > today)
     throw new BadRequestError(`body.startedOn: ${request.startedOn} is in the future; start the batch on the day it is made.`);
 
-  const locked = await lockVessels(tx, actor.cellarId, request.vessels);
+  const locked = await lockVessels(tx, actor, request.vessels);
   const overrideReason = request.override?.reason ?? null;
   let overrideUsed = false;
   for (const fill of request.vessels) {

@@ -105,11 +105,11 @@ export async function bottleBatch(actor: Actor, tx: EntityManager, batchId: stri
   const batches = tx.getRepository(Batch);
   if (!(await batches.existsBy({ id: batchId, cellarId: actor.cellarId }))) throw new NotFoundError('No such batch in this cellar.');
   // Vessels before the batch row: the lock order every writer follows, so none deadlock.
-  const vessels = await lockVessels(tx, actor.cellarId, request.from);
+  const vessels = await lockVessels(tx, actor, request.from);
   const batch = await batches.createQueryBuilder('b').where({ id: batchId }).setLock('pessimistic_write').getOneOrFail();
   checkDate(batch, request.bottledOn, now);
   for (const vessel of vessels.values()) {
-    if (vessel.batchId !== batch.id) throw await vesselChangedError(tx, vessel, `does not hold ${batch.name}`);
+    if (vessel.batchId !== batch.id) throw await vesselChangedError(tx, vessel, actor.units, `does not hold ${batch.name}`);
   }
   const from = request.from.map((ref) => vessels.get(ref.vesselId)!);
   const volumeL = from.reduce((sum, v) => sum + (v.volumeL ?? 0), 0);

@@ -25,7 +25,7 @@ export async function emptyVessel(actor: Actor, tx: EntityManager, vesselId: str
   requireRole(actor, 'hand');
   const now = new Date();
   // The vessel first, then its batch: the order every writer locks in.
-  const vessel = (await lockVessels(tx, actor.cellarId, [{ vesselId, expectedVersion: request.expectedVersion }])).get(vesselId)!;
+  const vessel = (await lockVessels(tx, actor, [{ vesselId, expectedVersion: request.expectedVersion }])).get(vesselId)!;
   if (!vessel.batchId) {
     throw new ConflictError(`${vessel.name} is already empty; there is nothing to pour out.`, { vesselId, currentVersion: vessel.version });
   }

@@ -1,5 +1,8 @@
 import { In, type EntityManager } from 'typeorm';
 import { vesselState } from '../../shared/domain/vessel-state';
+import type { UnitSystem } from '../../shared/calc';
+import type { Actor } from '../core/actor';
+import { volumeText } from '../core/litres';
 import { Batch } from '../entities/batch.entity';
 import { Cellar } from '../entities/cellar.entity';
 import { Vessel } from '../entities/vessel.entity';
@@ -11,21 +14,26 @@ export interface VesselRef {
   expectedVersion?: number;
 }
 
-/** "now holds Quince cyser (18.5 L)" / "is now empty and dirty". */
-export async function describeVesselNow(tx: EntityManager, vessel: Vessel): Promise<string> {
+/** "now holds Quince cyser (18.5 L)" / "is now empty and dirty", the volume in `units`. */
+export async function describeVesselNow(tx: EntityManager, vessel: Vessel, units: UnitSystem): Promise<string> {
   if (vessel.retiredAt) return 'is now retired';
   if (vessel.batchId) {
     const batch = await tx.getRepository(Batch).findOneBy({ id: vessel.batchId });
-    return `now holds ${batch?.name ?? 'another batch'} (${vessel.volumeL} L)`;
+    return `now holds ${batch?.name ?? 'another batch'} (${volumeText(vessel.volumeL ?? 0, units)})`;
   }
   const cellar = await tx.getRepository(Cellar).findOneByOrFail({ id: vessel.cellarId });
   return `is now empty and ${vesselState(vessel, cellar.sanitisedValidDays)}`;
 }
 
-/** 409 naming the vessel, what it is now and when it changed. */
-export async function vesselChangedError(tx: EntityManager, vessel: Vessel, what = 'changed while you were working'): Promise<ConflictError> {
+/** 409 naming the vessel, what it is now (in the actor's units) and when it changed. */
+export async function vesselChangedError(
+  tx: EntityManager,
+  vessel: Vessel,
+  units: UnitSystem,
+  what = 'changed while you were working',
+): Promise<ConflictError> {
   const when = vessel.updatedAt.toISOString().slice(0, 16).replace('T', ' ');
-  return new ConflictError(`${vessel.name} ${what}: it ${await describeVesselNow(tx, vessel)} (changed ${when} UTC). Reload and try again.`, {
+  return new ConflictError(`${vessel.name} ${what}: it ${await describeVesselNow(tx, vessel, units)} (changed ${when} UTC). Reload and try again.`, {
     vesselId: vessel.id,
     currentVersion: vessel.version,
   });
@@ -37,14 +45,14 @@ export async function vesselChangedError(tx: EntityManager, vessel: Vessel, what
  * the same vessel waits here for the first to commit, then sees what it did.
  * @returns the vessels by id
  */
-export async function lockVessels(tx: EntityManager, cellarId: string, refs: VesselRef[]): Promise<Map<string, Vessel>> {
+export async function lockVessels(tx: EntityManager, actor: Actor, refs: VesselRef[]): Promise<Map<string, Vessel>> {
   const ids = refs.map((r) => r.vesselId);
   if (new Set(ids).size !== ids.length) throw new BadRequestError('The same vessel is listed twice.');
   if (ids.length === 0) return new Map();
   const rows = await tx
     .getRepository(Vessel)
     .createQueryBuilder('v')
-    .where({ id: In(ids), cellarId })
+    .where({ id: In(ids), cellarId: actor.cellarId })
     .orderBy('v.id')
     .setLock('pessimistic_write')
     .getMany();
@@ -53,7 +61,7 @@ export async function lockVessels(tx: EntityManager, cellarId: string, refs: Ves
     const vessel = byId.get(ref.vesselId);
     if (!vessel) throw new NotFoundError('No such vessel in this cellar.');
     if (ref.expectedVersion !== undefined && ref.expectedVersion !== vessel.version) {
-      throw await vesselChangedError(tx, vessel);
+      throw await vesselChangedError(tx, vessel, actor.units);
     }
   }
   return byId;

@@ -33,8 +33,8 @@ async function bumpVersion(tx: EntityManager, vesselId: string): Promise<void> {
 }
 
 /** Locks one vessel for the transaction, checking the caller's version (409 naming it otherwise). */
-async function lockOne(tx: EntityManager, cellarId: string, vesselId: string, expectedVersion?: number): Promise<Vessel> {
-  const locked = await lockVessels(tx, cellarId, [{ vesselId, expectedVersion }]);
+async function lockOne(tx: EntityManager, actor: Actor, vesselId: string, expectedVersion?: number): Promise<Vessel> {
+  const locked = await lockVessels(tx, actor, [{ vesselId, expectedVersion }]);
   return locked.get(vesselId)!;
 }
 
@@ -144,7 +144,7 @@ export async function updateVessel(actor: Actor, tx: EntityManager, vesselId: st
   requireRole(actor, 'hand');
   const { cellarId } = actor;
   const { expectedVersion, ...changes } = input;
-  const vessel = await lockOne(tx, cellarId, vesselId, expectedVersion);
+  const vessel = await lockOne(tx, actor, vesselId, expectedVersion);
   if (changes.name !== undefined) await requireFreeVesselName(tx, cellarId, changes.name, vessel.id);
   if (changes.capacityL !== undefined && vessel.volumeL !== null && changes.capacityL < vessel.volumeL) {
     throw new ConflictError(
@@ -172,7 +172,7 @@ export async function setCleaning(
 ): Promise<VesselDto> {
   requireRole(actor, 'hand');
   const { cellarId } = actor;
-  const vessel = await lockOne(tx, cellarId, vesselId, input.expectedVersion);
+  const vessel = await lockOne(tx, actor, vesselId, input.expectedVersion);
   const now = new Date();
   const refusal = cleaningRefusal(vessel, input.state, await validDays(tx, cellarId), now);
   if (refusal) throw new ConflictError(refusal, { vesselId: vessel.id });
@@ -192,7 +192,7 @@ export async function setRetired(
 ): Promise<VesselDto> {
   requireRole(actor, 'hand');
   const { cellarId } = actor;
-  const vessel = await lockOne(tx, cellarId, vesselId, input.expectedVersion);
+  const vessel = await lockOne(tx, actor, vesselId, input.expectedVersion);
   if (input.retired && !vessel.retiredAt) {
     if (vessel.batchId) {
       throw new ConflictError(`${vessel.name} holds a batch. Only an empty vessel can be retired.`, { vesselId: vessel.id });
@@ -218,7 +218,7 @@ export async function moveVessel(
 ): Promise<VesselDto> {
   requireRole(actor, 'hand');
   const { cellarId } = actor;
-  const vessel = await lockOne(tx, cellarId, vesselId, input.expectedVersion);
+  const vessel = await lockOne(tx, actor, vesselId, input.expectedVersion);
   await placeThing(tx, cellarId, { vesselId }, input.to);
   await bumpVersion(tx, vesselId);
   await recordAudit(tx, actor, {
@@ -233,8 +233,7 @@ export async function moveVessel(
 /** Deletes an empty vessel and its place. The journal keeps its name where it was used. */
 export async function deleteVessel(actor: Actor, tx: EntityManager, vesselId: string, expectedVersion?: number): Promise<void> {
   requireRole(actor, 'keeper');
-  const { cellarId } = actor;
-  const vessel = await lockOne(tx, cellarId, vesselId, expectedVersion);
+  const vessel = await lockOne(tx, actor, vesselId, expectedVersion);
   if (vessel.batchId) {
     throw new ConflictError(`${vessel.name} holds a batch. Rack or bottle it out before deleting the vessel.`, { vesselId: vessel.id });
   }

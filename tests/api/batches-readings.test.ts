@@ -106,6 +106,10 @@ describe('POST /batches/:batchId/readings', () => {
     const wrong = await crew.as.hand.post(readings(result.batch.id)).send({ sg: 1.02, vesselId: theirs.id });
     expect(wrong.status).toBe(409);
     expect(wrong.body.message).toMatch(new RegExp(`^${theirs.name} changed while you were working: it now holds ${neighbour.batch.name}`));
+    expect(wrong.body.message).toContain(`now holds ${neighbour.batch.name} (10 L)`);
+    // What the vessel holds now, in the units the request names: 10 L = 2.642 US gal (1 US gal = 3.785411784 L, NIST Handbook 44).
+    const wrongInUs = await crew.as.hand.post(readings(result.batch.id)).set('Units-Shown', 'us').send({ sg: 1.02, vesselId: theirs.id });
+    expect(wrongInUs.body.message).toContain(`now holds ${neighbour.batch.name} (2.64 US gal)`);
     const bottled = await makeBatch(ds, crew.cellar.id, { name: 'All bottled mead' });
     const none = await crew.as.hand.post(readings(bottled.id)).send({ sg: 1.0 });
     expect(none.status).toBe(409);
