@@ -1,12 +1,11 @@
 import { Router, type Request } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { DataSource } from 'typeorm';
 import { invitationSignUpSchema, passwordResetCompleteSchema, passwordResetRequestSchema, tokenRequestSchema } from '../../shared/schemas/accounts';
 import { inTransaction } from '../core/unit-of-work';
 import { handle } from '../http/handle';
 import { requireSignIn } from '../http/access';
 import { acceptInvitation, previewInvitation, signUpWithInvitation } from './invitation-acceptance';
-import { mailRequestLimit, type MailRateLimits } from './mail-rate-limits';
+import { mailRequestLimit, tokenAttemptLimit, type MailRateLimits } from './mail-rate-limits';
 import { completePasswordReset, requestPasswordReset } from './password-reset';
 import { describeSessionUser } from './session-user';
 
@@ -32,15 +31,7 @@ function logIn(req: Request, user: Express.User): Promise<void> {
 /** Under /api/auth: invitations seen from the invited person's side, and password reset. */
 export function accountMailRoutes(ds: DataSource, options: AccountMailRouteOptions): Router {
   const router = Router();
-  // Tokens have 256 bits, so guessing is hopeless; this only stops a flood of attempts.
-  const tokenLimiter = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: 60,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: (req) => `token|${ipKeyGenerator(req.ip ?? '')}`,
-    handler: (_req, res) => void res.status(429).json({ error: 'too_many_requests', message: 'Too many attempts. Wait 15 minutes and try again.' }),
-  });
+  const tokenLimiter = tokenAttemptLimit(ds, options.limits);
 
   router.post(
     '/invitation/preview',

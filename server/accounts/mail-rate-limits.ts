@@ -1,4 +1,4 @@
-import type { Request, RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { ipKeyGenerator } from 'express-rate-limit';
 import type { DataSource } from 'typeorm';
 import { sharedLimit } from '../http/shared-rate-limit';
@@ -8,11 +8,23 @@ export interface MailRateLimits {
   perEmailPerHour: number;
   /** Requests per client IP per hour. */
   perIpPerHour: number;
+  /** Attempts with an invitation or reset token per client IP per quarter hour (60 when not given). */
+  tokenAttemptsPerQuarterHour?: number;
 }
 
 export const DEFAULT_MAIL_RATE_LIMITS: MailRateLimits = { perEmailPerHour: 5, perIpPerHour: 30 };
 
 const HOUR_SECONDS = 60 * 60;
+const QUARTER_HOUR_SECONDS = 15 * 60;
+
+/** 429 with Retry-After and the wait in whole minutes. */
+function refuse(res: Response, wait: number, what: string): void {
+  const minutes = Math.max(1, Math.ceil(wait / 60));
+  res
+    .status(429)
+    .set('Retry-After', String(wait))
+    .json({ error: 'too_many_requests', message: `${what}. Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.` });
+}
 
 /**
  * Limits a request that sends mail, counted in PostgreSQL so every app instance shares the
@@ -28,13 +40,20 @@ export function mailRequestLimit(ds: DataSource, name: string, limits: MailRateL
     const [ipWait, emailWait] = await Promise.all([perIp.take(ipKeyGenerator(req.ip ?? '')), perEmail.take(emailOf(req))]);
     const wait = Math.max(ipWait, emailWait);
     if (wait === 0) return next();
-    const minutes = Math.max(1, Math.ceil(wait / 60));
-    res
-      .status(429)
-      .set('Retry-After', String(wait))
-      .json({
-        error: 'too_many_requests',
-        message: `${emailWait ? 'Too many mails to this address' : 'Too many requests from here'}. Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`,
-      });
+    refuse(res, wait, emailWait ? 'Too many mails to this address' : 'Too many requests from here');
+  };
+}
+
+/**
+ * Limits attempts with a mailed token (an invitation or a password reset) per client IP,
+ * counted in PostgreSQL like the mail limits, so several app instances share one count.
+ * Tokens have 256 bits, so guessing is hopeless; this only stops a flood of attempts.
+ */
+export function tokenAttemptLimit(ds: DataSource, limits: MailRateLimits): RequestHandler {
+  const perIp = sharedLimit(ds, { name: 'mail-token-ip', points: limits.tokenAttemptsPerQuarterHour ?? 60, windowSeconds: QUARTER_HOUR_SECONDS });
+  return async (req, res, next) => {
+    const wait = await perIp.take(ipKeyGenerator(req.ip ?? ''));
+    if (wait === 0) return next();
+    refuse(res, wait, 'Too many attempts');
   };
 }

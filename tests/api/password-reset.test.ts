@@ -90,6 +90,34 @@ describe('asking for a reset', () => {
     expect(statuses).toEqual([202, 202, 202, 429]);
   });
 
+  it('counts attempts with a token in the database too, so a second app instance shares the count', async () => {
+    const strict = () =>
+      createApp({
+        dataSource: ds,
+        sessionSecret: 'test-secret-that-is-long-enough-0123456789',
+        cookieSecure: false,
+        publicUrl: PUBLIC_URL,
+        mail: {
+          mailbox: mail.mailbox,
+          resetAnswerMs: ANSWER_FLOOR_MS,
+          limits: { perEmailPerHour: 3, perIpPerHour: 1000, tokenAttemptsPerQuarterHour: 3 },
+        },
+      });
+    const [one, two] = [strict(), strict()];
+    // A well-formed token that was never issued (base64url of 32 bytes): refused as unknown until the limit is reached.
+    const token = Buffer.alloc(32, 7).toString('base64url');
+    const answers = [];
+    for (const instance of [one, two, one, two]) {
+      answers.push(await request(instance).post('/api/auth/password-reset/complete').send({ token, password: 'a-long-enough-password' }));
+    }
+    expect(answers.map((a) => a.status)).toEqual([400, 400, 400, 429]);
+    expect(answers[3]!.body).toEqual({
+      error: 'too_many_requests',
+      message: expect.stringMatching(/^Too many attempts\. Wait 15 minutes and try again\.$/),
+    });
+    expect(Number(answers[3]!.headers['retry-after'])).toBeGreaterThan(14 * 60);
+  });
+
   it('refuses something that is not an address', async () => {
     const res = await ask('not an address');
     expect(res.status).toBe(400);
