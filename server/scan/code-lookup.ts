@@ -47,9 +47,10 @@ async function findCode(tx: EntityManager, code: string, userId: string | undefi
   return row ?? null;
 }
 
-/** The client route that shows a thing: a vessel's page, or the Bottles page on its lot. */
+/** The client route that shows a thing: a vessel's page, or the Bottles page on its lot (and, for a case, on that case). */
 function clientPath(t: CodeTarget): string {
-  return t.kind === 'vessel' ? `/c/${t.cellarId}/vessels/${t.id}` : `/c/${t.cellarId}/bottles?lot=${t.lotId}`;
+  if (t.kind === 'vessel') return `/c/${t.cellarId}/vessels/${t.id}`;
+  return t.kind === 'case' ? `/c/${t.cellarId}/bottles?case=${t.id}` : `/c/${t.cellarId}/bottles?lot=${t.lotId}`;
 }
 
 /**

@@ -32,19 +32,22 @@ beforeAll(async () => {
   outsider = await signedInAgent(app, other.keeper.email, TEST_PASSWORD);
   const batch = await makeBatch(ds, crew.cellar.id, { name: 'Quince Cyser', kind: 'cyser', og: 1.11 });
   vessel = await makeVessel(ds, crew.cellar.id, { name: 'Demijohn 4', batch });
-  ({ lot, cases: [box] } = await makeLotWithCases(ds, crew.cellar.id, batch, { cases: 1, sulfiteAdded: true, abvEstimate: 11.2, note: 'Best after a year.' }) as {
+  ({
+    lot,
+    cases: [box],
+  } = (await makeLotWithCases(ds, crew.cellar.id, batch, { cases: 1, sulfiteAdded: true, abvEstimate: 11.2, note: 'Best after a year.' })) as {
     lot: BottleLotRow;
     cases: [BottleCaseRow];
   });
 });
 
 describe('GET /s/:code', () => {
-  it('sends a member to the record: a vessel page, or the Bottles page on the lot', async () => {
+  it('sends a member to the record: a vessel page, or the Bottles page on the case or the lot', async () => {
     const v = await member.get(`/s/${vessel.code}`);
     expect(v.status).toBe(302);
     expect(v.headers.location).toBe(`/c/${crew.cellar.id}/vessels/${vessel.id}`);
     const c = await member.get(`/s/${box.code.toLowerCase()}`);
-    expect(c.headers.location).toBe(`/c/${crew.cellar.id}/bottles?lot=${lot.id}`);
+    expect(c.headers.location).toBe(`/c/${crew.cellar.id}/bottles?case=${box.id}`);
     const l = await member.get(`/s/${lot.code}`);
     expect(l.headers.location).toBe(`/c/${crew.cellar.id}/bottles?lot=${lot.id}`);
   });
@@ -80,7 +83,7 @@ describe('public bottle cards', () => {
     expect((await request(app).get(`/s/${lot.code}`)).headers.location).toBe(`/card/${lot.code}`);
     // Vessels never have a public card; members still go to the record.
     expect((await outsider.get(`/s/${vessel.code}`)).headers.location).toBe('/no-such-label');
-    expect((await member.get(`/s/${box.code}`)).headers.location).toBe(`/c/${crew.cellar.id}/bottles?lot=${lot.id}`);
+    expect((await member.get(`/s/${box.code}`)).headers.location).toBe(`/c/${crew.cellar.id}/bottles?case=${box.id}`);
     await setPublicCards(ds, crew.cellar.id, false);
   });
 
@@ -129,12 +132,12 @@ describe('codeFromScan (what the Scan page sends)', () => {
 });
 
 describe('GET /api/scan/:code', () => {
-  it('resolves a member\'s code to the record', async () => {
+  it("resolves a member's code to the record", async () => {
     const res = await member.get(`/api/scan/${vessel.code.toLowerCase()}`);
     expect(res.status).toBe(200);
     expect(res.body).toEqual({ kind: 'vessel', id: vessel.id, cellarId: crew.cellar.id, url: `/c/${crew.cellar.id}/vessels/${vessel.id}` });
     const c = await member.get(`/api/scan/${box.code}`);
-    expect(c.body).toMatchObject({ kind: 'case', id: box.id, url: `/c/${crew.cellar.id}/bottles?lot=${lot.id}` });
+    expect(c.body).toMatchObject({ kind: 'case', id: box.id, url: `/c/${crew.cellar.id}/bottles?case=${box.id}` });
   });
 
   it('answers 404 alike for other cellars and unknown codes, 400 for a malformed one, 401 signed out', async () => {
@@ -168,7 +171,7 @@ describe('shelf check', () => {
   it('lists present, missing, misplaced and unknown codes and the free slots', async () => {
     const cellarId = crew.cellar.id;
     const { shelves } = await makeRack(ds, cellarId, 'Check rack', [5, 5]);
-    const [top, bottom] = shelves as [typeof shelves[0], typeof shelves[0]];
+    const [top, bottom] = shelves as [(typeof shelves)[0], (typeof shelves)[0]];
     const here = await makeVessel(ds, cellarId, { name: 'Here jug' });
     const gone = await makeVessel(ds, cellarId, { name: 'Gone jug' });
     const strayed = await makeVessel(ds, cellarId, { name: 'Strayed jug' });
@@ -178,7 +181,10 @@ describe('shelf check', () => {
     const foreign = await makeVessel(ds, other.cellar.id, { name: 'Foreign jug' });
 
     const contents = await member.get(`/api/cellars/${cellarId}/labels/shelf/${top.id}/contents`);
-    expect(contents.body.items.map((i: { slot: number; code: string }) => [i.slot, i.code])).toEqual([[1, here.code], [3, gone.code]]);
+    expect(contents.body.items.map((i: { slot: number; code: string }) => [i.slot, i.code])).toEqual([
+      [1, here.code],
+      [3, gone.code],
+    ]);
 
     const codes = [here.code, strayed.code.toLowerCase(), foreign.code, UNKNOWN].join(',');
     const res = await member.get(`/api/cellars/${cellarId}/labels/shelf/${top.id}/check?codes=${codes}`);
@@ -186,7 +192,14 @@ describe('shelf check', () => {
     expect(res.body.present.map((p: { id: string }) => p.id)).toEqual([here.id]);
     expect(res.body.missing.map((p: { id: string }) => p.id)).toEqual([gone.id]);
     expect(res.body.misplaced).toEqual([
-      { kind: 'vessel', id: strayed.id, code: strayed.code, label: 'Strayed jug', version: strayed.version, recordedAt: 'Check rack · shelf 2 · slot 2' },
+      {
+        kind: 'vessel',
+        id: strayed.id,
+        code: strayed.code,
+        label: 'Strayed jug',
+        version: strayed.version,
+        recordedAt: 'Check rack · shelf 2 · slot 2',
+      },
     ]);
     expect(res.body.unknown).toEqual([foreign.code, UNKNOWN]);
     expect(res.body.freeSlots).toEqual([2, 4, 5]);
