@@ -1,4 +1,4 @@
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { flushPromises } from '@vue/test-utils';
 import { bottleLotSchema, caseDetailSchema, lotDetailSchema, type BottleLot } from '@shared/schemas/bottles';
 import BottlesPage from '@/pages/BottlesPage.vue';
@@ -57,6 +57,7 @@ function cellarWithManyLots(): FakeApi {
 }
 
 afterEach(() => {
+  vi.restoreAllMocks();
   document.body.innerHTML = '';
 });
 
@@ -72,12 +73,19 @@ describe('the Bottles page opened on one lot or case (a scanned label)', () => {
     expect(document.querySelector('[data-test=lot-OLDLOT01]')?.classList.contains('q-expansion-item--expanded')).toBe(true);
   });
 
-  it('finds a scanned case’s lot the same way, with the case picked out', async () => {
+  it('finds a scanned case’s lot the same way, with the case picked out and brought into view', async () => {
     cellarWithManyLots();
+    const scrolled: Element[] = [];
+    vi.spyOn(HTMLElement.prototype, 'scrollIntoView').mockImplementation(function (this: HTMLElement) {
+      scrolled.push(this);
+    });
     const { router } = await mountInApp(BottlesPage, `/c/${CELLAR_ID}/bottles?case=${OLD_CASE_ID}`);
     await flushPromises();
     expect(router.currentRoute.value.query).toEqual({ q: 'Quince perry', all: 'true', lot: OLD_LOT_ID, case: OLD_CASE_ID });
     expect(document.querySelector('[data-test=lot-OLDLOT01]')?.classList.contains('q-expansion-item--expanded')).toBe(true);
+    const picked = document.querySelector('[data-test=case-2]');
+    expect(picked?.classList.contains('case-card--focus')).toBe(true);
+    expect(scrolled).toContain(picked);
   });
 
   it('leaves a search the person typed as it is', async () => {
