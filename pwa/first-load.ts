@@ -7,6 +7,7 @@ const PAGES: Record<string, string> = {
   vessel: '/src/pages/VesselPage.vue',
   batch: '/src/pages/BatchPage.vue',
   today: '/src/pages/TodayPage.vue',
+  bottles: '/src/pages/BottlesPage.vue',
 };
 
 /**

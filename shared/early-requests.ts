@@ -2,12 +2,14 @@
  * The first page of a visit asks the server for the session and its main record only after the
  * client's JavaScript has loaded and run, and fetches the page's own code only then too. This
  * small script, inlined in index.html's <head>, starts both while the entry script loads:
- * - GETs of the session, the cellar's settings and a Vessel or Batch page's record, whose answers
- *   `src/api/early-requests.ts` hands to the first `request()` for the same URL;
+ * - GETs of the session, the cellar's settings and a Vessel or Batch page's record (or a scanned
+ *   case's), whose answers `src/api/early-requests.ts` hands to the first `request()` for the
+ *   same URL;
  * - preloads of the layout's and the page's code, listed at build time in the JSON block
  *   `#page-files` (pwa/first-load.ts) — a data block, which runs nothing.
- * - for a vessel, its first glance once the record is back (shared/first-glance-script.ts).
- * A scanned label (→ the Vessel page) is the case it is for.
+ * - for a vessel, or a case opened on the Bottles page, its first glance once the record is back
+ *   (shared/first-glance-script.ts).
+ * A scanned label (→ the Vessel page, or the Bottles page on a case) is the case it is for.
  *
  * Plain ES5 in a string: it runs before any module. The server allows the inline scripts of the
  * index.html it serves by their hashes (server/http/inline-script-hashes.ts).
@@ -54,7 +56,16 @@ export const EARLY_REQUESTS_SCRIPT = `(function () {
     get(recordUrl);
     preload(record[1] === 'vessels' ? 'vessel' : 'batch');
     // A vessel is what a scanned label opens: its name and contents as soon as they are here.
-    if (record[1] === 'vessels') showFirstGlance(early[recordUrl]);
+    if (record[1] === 'vessels') showFirstGlance(early[recordUrl], 'vessel');
+  } else if (/^\\/c\\/[^/]+\\/bottles\\/?$/.test(location.pathname)) {
+    preload('bottles');
+    // A scanned case label (/bottles?case=…): the case, its batch and its place as soon as they are here.
+    var scannedCase = new RegExp('[?&]case=(' + id + ')(&|$)').exec(location.search);
+    if (scannedCase) {
+      var caseUrl = '/api/cellars/' + cellar[1] + '/cases/' + scannedCase[1];
+      get(caseUrl);
+      showFirstGlance(early[caseUrl], 'case');
+    }
   } else if (/^\\/c\\/[^/]+\\/today\\/?$/.test(location.pathname)) {
     preload('today');
   }

@@ -4,6 +4,7 @@ import QRCode from 'qrcode';
 import type { Vessel } from '../../server/entities/vessel.entity';
 import type { Shelf } from '../../server/entities/shelf.entity';
 import { makeBatch } from '../helpers/batches';
+import { makeLotWithCases } from '../helpers/bottles';
 import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { makeRack, placeDirectly } from '../helpers/places';
 import { makeVessel } from '../helpers/vessels';
@@ -129,6 +130,40 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     await page.locator('[data-test=vessel-title]').waitFor({ state: 'visible' });
     expect(await page.textContent('[data-test=vessel-title]')).toContain('Jug <i>Seven</i>');
     await glance.waitFor({ state: 'detached' });
+  });
+
+  it("shows a scanned case's number, batch, bottles and place before the app's code has run, then the Bottles page on that case", async () => {
+    const { baseUrl, ds } = env();
+    const batch = await makeBatch(ds, crew.cellar.id, { name: 'Bramble <b>Cider</b>', kind: 'cider', og: 1.05 });
+    const {
+      cases: [, second],
+    } = await makeLotWithCases(ds, crew.cellar.id, batch, { cases: 2, perCase: 12 });
+    await placeDirectly(ds, crew.cellar.id, shelves[1]!.id, 4, { caseId: second!.id });
+    const page = await freshPage();
+    await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
+    const caseRecord = `/api/cellars/${crew.cellar.id}/cases/${second!.id}`;
+    const asked: string[] = [];
+    page.on('request', (r) => asked.push(new URL(r.url()).pathname));
+    const held: Route[] = [];
+    let released = false;
+    await page.route(/\/assets\/index-[^/]+\.js$/, (route) => (released ? route.continue() : void held.push(route)));
+    await page.goto(`${baseUrl}/s/${second!.code}`, { waitUntil: 'commit' });
+    const glance = page.locator('#first-glance');
+    await glance.waitFor({ state: 'visible' });
+    expect(await page.textContent('[data-test=glance-title]')).toBe('Case 2');
+    expect(await glance.locator('i, b').count()).toBe(0);
+    const words = await glance.innerText();
+    expect(words).toContain('Bramble <b>Cider</b>');
+    expect(words).toContain('12 of 12 bottles left');
+    expect(words).toContain('Scan rack · shelf 2 · slot 4');
+
+    await expect.poll(() => held.length).toBeGreaterThan(0);
+    released = true;
+    for (const route of held) await route.continue();
+    await page.locator('[data-test=case-2].case-card--focus').waitFor({ state: 'visible' });
+    await glance.waitFor({ state: 'detached' });
+    // The page took the early answer: the case was asked for once, by index.html's script.
+    expect(asked.filter((p) => p === caseRecord)).toHaveLength(1);
   });
 
   it('draws no glance when the record is not there to show: an unknown vessel leaves the page to say so', async () => {
