@@ -124,9 +124,9 @@ describeInBrowser('Calculators page, in Chromium', (env) => {
     // An empty field is not an error: a hint, no message, no NaN.
     await page.fill('[data-test=abv-og]', '');
     await expect.poll(() => page.textContent('[data-test=abv-outcome]')).toContain('Enter the original and final gravity.');
-    // Quasar fades the old message out, so wait for it to go.
+    // Quasar fades the old message out (its text, then its alert element), so wait for both to go.
     await expect.poll(() => fieldText(page, 'abv-og')).not.toContain(notANumber);
-    expect(await page.locator('[data-test=calc-abv] [role=alert]').count()).toBe(0);
+    await expect.poll(() => page.locator('[data-test=calc-abv] [role=alert]').count()).toBe(0);
 
     // A volume larger than the vessel: the message comes from the headspace computation.
     await page.fill('[data-test=head-capacity]', '23');
