@@ -7,7 +7,7 @@ import { sendQueuedWrite } from '@/offline/send-queued-write';
 import { useCellarStore } from '@/stores/cellar';
 import { usePreferencesStore } from '@/stores/preferences';
 import { fakeApi, type FakeApi } from './support/fake-api';
-import { BATCH_ID, CELLAR_ID, operationResult } from './support/fixtures';
+import { BATCH_ID, CELLAR_ID, cellarSettings, operationResult } from './support/fixtures';
 
 const notesPath = `/api/cellars/${CELLAR_ID}/batches/${BATCH_ID}/notes`;
 
@@ -29,19 +29,7 @@ describe('the units a request names for the server’s messages', () => {
   });
 
   async function openCellar(unitSystem: 'metric' | 'us'): Promise<void> {
-    api.on('GET', `/api/cellars/${CELLAR_ID}/settings`, {
-      body: {
-        id: CELLAR_ID,
-        name: 'Quillfield cellar',
-        unitSystem,
-        timeZone: 'Europe/Berlin',
-        sanitisedValidDays: 7,
-        headspaceWarnPercent: 10,
-        annualLimitL: null,
-        publicBottleCards: false,
-        role: 'hand',
-      },
-    });
+    api.on('GET', `/api/cellars/${CELLAR_ID}/settings`, { body: cellarSettings(unitSystem) });
     await useCellarStore().load(CELLAR_ID);
   }
 

@@ -4,24 +4,10 @@ import { useFormat } from '@/composables/useFormat';
 import { useUnits } from '@/composables/useUnits';
 import { useCellarStore } from '@/stores/cellar';
 import { fakeApi, type FakeApi } from './support/fake-api';
-import { CELLAR_ID } from './support/fixtures';
+import { CELLAR_ID, cellarSettings } from './support/fixtures';
 
 /** The US gallon is 231 cubic inches and the inch 2.54 cm exactly: 231 × 2.54³ cm³ = 3785.411784 cm³. */
 const LITRES_PER_US_GALLON = 3.785411784;
-
-function cellarSettings(unitSystem: 'metric' | 'us') {
-  return {
-    id: CELLAR_ID,
-    name: 'Quillfield cellar',
-    unitSystem,
-    timeZone: 'Europe/Berlin',
-    sanitisedValidDays: 7,
-    headspaceWarnPercent: 10,
-    annualLimitL: null,
-    publicBottleCards: false,
-    role: 'hand',
-  };
-}
 
 describe('useUnits and useFormat', () => {
   let api: FakeApi;

@@ -1,6 +1,7 @@
 import type { SessionUser } from '@shared/schemas/auth';
 import { batchDetailSchema, type BatchDetail, type OperationResult } from '@shared/schemas/batch-detail';
 import { batchPageSchema, type BatchSummary } from '@shared/schemas/batches';
+import { cellarSchema, type Cellar } from '@shared/schemas/cellars';
 import { readingResultSchema, type ReadingResult } from '@shared/schemas/journal';
 import type { Role } from '@shared/roles';
 import { vesselSchema, type Vessel } from '@shared/schemas/vessels';
@@ -24,6 +25,21 @@ export function sessionUser(role: Role = 'hand'): SessionUser {
 /** The fake server knows this user as signed in (the router's guard asks first). */
 export function signIn(api: FakeApi, role: Role = 'hand'): void {
   api.on('GET', '/api/auth/me', { body: sessionUser(role) });
+}
+
+/** The open cellar's settings in the given units, checked against the shared schema. */
+export function cellarSettings(unitSystem: Cellar['unitSystem']): Cellar {
+  return cellarSchema.parse({
+    id: CELLAR_ID,
+    name: 'Quillfield cellar',
+    unitSystem,
+    timeZone: 'Europe/Berlin',
+    sanitisedValidDays: 7,
+    headspaceWarnPercent: 10,
+    annualLimitL: null,
+    publicBottleCards: false,
+    role: 'hand',
+  });
 }
 
 /** A batch in one 23 L carboy, checked against the shared schema so the fixture cannot drift. */
