@@ -138,18 +138,13 @@ describe('top-ups, degassing, tastings and notes', () => {
     // In the units the person reads, when the request names them: 1 US gal = 3.785411784 L and
     // 1 US fl oz = 1/128 US gal (NIST Handbook 44, Appendix C). 21 L = 5.548 gal, 23 L = 6.076 gal,
     // 2.5 L = 84.54 fl oz, 2 L = 67.63 fl oz; below a gallon the app says fl oz.
-    const overInUs = await crew.as.hand
-      .post(url(result.batch.id, 'top-ups'))
-      .set('Units-Shown', 'us')
-      .send({ vesselId: vessel.id, volumeL: 2.5, with: 'Water' });
+    const overIn = (units: string) =>
+      crew.as.hand.post(url(result.batch.id, 'top-ups')).set('Units-Shown', units).send({ vesselId: vessel.id, volumeL: 2.5, with: 'Water' });
+    const overInUs = await overIn('us');
     expect(overInUs.status).toBe(409);
     expect(overInUs.body.message).toBe('Demijohn 4 holds 5.55 US gal of 6.08 US gal; 84.5 US fl oz more will not fit (room for 67.6 US fl oz).');
     // A units name the server does not know words it in metric, as without the header: a display choice, never refused.
-    const overUnknown = await crew.as.hand
-      .post(url(result.batch.id, 'top-ups'))
-      .set('Units-Shown', 'imperial')
-      .send({ vesselId: vessel.id, volumeL: 2.5, with: 'Water' });
-    expect(overUnknown.body.message).toBe(over.body.message);
+    expect((await overIn('imperial')).body.message).toBe(over.body.message);
     const {
       vessels: [theirs],
     } = await batchInVessels(ds, crew, [10]);
