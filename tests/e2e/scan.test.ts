@@ -47,6 +47,21 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     for (const page of pages.splice(0)) await page.close().catch(() => undefined);
   });
 
+  /**
+   * Holds back the app's entry script, so that only index.html's own script can draw anything.
+   * @returns a release: once the page has asked for the script, it gets it, and any later ask too
+   */
+  async function holdAppEntry(page: Page): Promise<() => Promise<void>> {
+    const held: Route[] = [];
+    let released = false;
+    await page.route(/\/assets\/index-[^/]+\.js$/, (route) => (released ? route.continue() : void held.push(route)));
+    return async () => {
+      await expect.poll(() => held.length).toBeGreaterThan(0);
+      released = true;
+      for (const route of held) await route.continue();
+    };
+  }
+
   it('opens a label URL signed out, asks to sign in, then lands on the vessel', async () => {
     const { baseUrl } = env();
     const page = await freshPage();
@@ -106,10 +121,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     await placeDirectly(ds, crew.cellar.id, shelves[1]!.id, 1, { vesselId: jug.id });
     const page = await freshPage();
     await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
-    // The app's entry held back: only index.html's own script can draw anything.
-    const held: Route[] = [];
-    let released = false;
-    await page.route(/\/assets\/index-[^/]+\.js$/, (route) => (released ? route.continue() : void held.push(route)));
+    const releaseApp = await holdAppEntry(page);
     await page.goto(`${baseUrl}/s/${jug.code}`, { waitUntil: 'commit' });
     const glance = page.locator('#first-glance');
     await glance.waitFor({ state: 'visible' });
@@ -124,9 +136,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     const [r, g, b] = [1, 3, 5].map((i) => parseInt(brandColours.primary.slice(i, i + 2), 16));
     expect(bar).toBe(`rgb(${r}, ${g}, ${b})`);
 
-    await expect.poll(() => held.length).toBeGreaterThan(0);
-    released = true;
-    for (const route of held) await route.continue();
+    await releaseApp();
     await page.locator('[data-test=vessel-title]').waitFor({ state: 'visible' });
     expect(await page.textContent('[data-test=vessel-title]')).toContain('Jug <i>Seven</i>');
     await glance.waitFor({ state: 'detached' });
@@ -144,9 +154,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     const caseRecord = `/api/cellars/${crew.cellar.id}/cases/${second!.id}`;
     const asked: string[] = [];
     page.on('request', (r) => asked.push(new URL(r.url()).pathname));
-    const held: Route[] = [];
-    let released = false;
-    await page.route(/\/assets\/index-[^/]+\.js$/, (route) => (released ? route.continue() : void held.push(route)));
+    const releaseApp = await holdAppEntry(page);
     await page.goto(`${baseUrl}/s/${second!.code}`, { waitUntil: 'commit' });
     const glance = page.locator('#first-glance');
     await glance.waitFor({ state: 'visible' });
@@ -157,9 +165,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     expect(words).toContain('12 of 12 bottles left');
     expect(words).toContain('Scan rack · shelf 2 · slot 4');
 
-    await expect.poll(() => held.length).toBeGreaterThan(0);
-    released = true;
-    for (const route of held) await route.continue();
+    await releaseApp();
     await page.locator('[data-test=case-2].case-card--focus').waitFor({ state: 'visible' });
     await glance.waitFor({ state: 'detached' });
     // The page took the early answer: the case was asked for once, by index.html's script.
