@@ -55,15 +55,15 @@ export class ApiError extends Error {
   }
 }
 
-let unitsShown: (() => UnitSystem) | undefined;
-/** Where requests learn the units the person reads (wired in main.ts, from the preferences). */
-export function setUnitsSource(source: (() => UnitSystem) | undefined): void {
-  unitsShown = source;
+let unitsShown: UnitSystem | undefined;
+/** The units the person reads, kept here whenever they change (`sendUnitsWithRequests`); undefined: none named. */
+export function setUnitsShown(units: UnitSystem | undefined): void {
+  unitsShown = units;
 }
 
 /** The header that asks the server to word its messages ("… holds 5.55 US gal") in the person's units. */
 export function unitsHeader(): Record<string, string> {
-  return unitsShown ? { [UNITS_HEADER]: unitsShown() } : {};
+  return unitsShown ? { [UNITS_HEADER]: unitsShown } : {};
 }
 
 let onUnauthorized: (() => void) | undefined;

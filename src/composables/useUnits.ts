@@ -1,6 +1,6 @@
 import type { Pinia } from 'pinia';
-import { computed } from 'vue';
-import { setUnitsSource } from '@/api/http';
+import { computed, watch } from 'vue';
+import { setUnitsShown } from '@/api/http';
 import { useCellarStore } from '@/stores/cellar';
 import { usePreferencesStore, type UnitSystem } from '@/stores/preferences';
 
@@ -14,8 +14,12 @@ export function useUnits() {
 
 /**
  * Every request names the units this person reads, the same choice as `useUnits`, so the
- * server's own messages ("Demijohn 4 holds 5.55 US gal …") read in them. Called once at start.
+ * server's own messages ("Demijohn 4 holds 5.55 US gal …") read in them. Called once at start;
+ * the choice is handed to the API layer when it changes (at once: a request made right after
+ * the switch already names the new units), not looked up on every request.
  */
 export function sendUnitsWithRequests(pinia: Pinia): void {
-  setUnitsSource(() => usePreferencesStore(pinia).unitsFor(useCellarStore(pinia).settings?.unitSystem));
+  const preferences = usePreferencesStore(pinia);
+  const cellar = useCellarStore(pinia);
+  watch(() => preferences.unitsFor(cellar.settings?.unitSystem), setUnitsShown, { immediate: true, flush: 'sync' });
 }

@@ -1,7 +1,7 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { createPinia, setActivePinia, type Pinia } from 'pinia';
 import { addNote } from '@/api/batches';
-import { setUnitsSource } from '@/api/http';
+import { setUnitsShown } from '@/api/http';
 import { sendUnitsWithRequests } from '@/composables/useUnits';
 import { sendQueuedWrite } from '@/offline/send-queued-write';
 import { useCellarStore } from '@/stores/cellar';
@@ -25,7 +25,7 @@ describe('the units a request names for the server’s messages', () => {
 
   afterEach(() => {
     // Back to no source: requests name no units, as before the app starts.
-    setUnitsSource(undefined);
+    setUnitsShown(undefined);
   });
 
   async function openCellar(unitSystem: 'metric' | 'us'): Promise<void> {
