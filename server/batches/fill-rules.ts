@@ -1,8 +1,7 @@
 import type { EntityManager } from 'typeorm';
-import { CAUTION_GLASS, headspace } from '../../shared/calc';
+import { CAUTION_GLASS, headspace, type UnitSystem } from '../../shared/calc';
 import { headspaceIsRisk } from '../../shared/domain/headspace-rule';
 import { vesselState } from '../../shared/domain/vessel-state';
-import type { UnitSystem } from '../../shared/calc';
 import { volumeText } from '../core/litres';
 import { Batch } from '../entities/batch.entity';
 import type { Cellar } from '../entities/cellar.entity';

@@ -113,10 +113,12 @@ export async function request<T>(method: Method, url: string, schema?: ZodType<T
       fetch(url, {
         method,
         credentials: 'same-origin',
-        headers:
-          body === undefined
-            ? { accept: 'application/json', ...unitsHeader(), ...headers }
-            : { accept: 'application/json', 'content-type': 'application/json', ...unitsHeader(), ...headers },
+        headers: {
+          accept: 'application/json',
+          ...(body === undefined ? {} : { 'content-type': 'application/json' }),
+          ...unitsHeader(),
+          ...headers,
+        },
         body: body === undefined ? undefined : JSON.stringify(body),
       }));
   } catch {
