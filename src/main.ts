@@ -11,7 +11,6 @@ import './css/app.css';
 import App from './App.vue';
 import { setUnauthorizedHandler } from './api/http';
 import { afterNextPaint } from './composables/after-next-paint';
-import { sendUnitsWithRequests } from './composables/useUnits';
 import { startOffline } from './offline/start-offline';
 import { lazyDialog } from './plugins/lazy-dialog';
 import { createAppRouter } from './router';
@@ -34,8 +33,6 @@ app.use(Quasar, {
 app.use(lazyDialog);
 const router = createAppRouter();
 app.use(router);
-
-sendUnitsWithRequests(pinia);
 
 // A session that ended on the server (expired, signed out elsewhere) sends the user to sign in.
 setUnauthorizedHandler(() => {

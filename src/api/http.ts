@@ -56,7 +56,7 @@ export class ApiError extends Error {
 }
 
 let unitsShown: UnitSystem | undefined;
-/** The units the person reads, kept here whenever they change (`sendUnitsWithRequests`); undefined: none named. */
+/** The units the person reads, kept here whenever they change (`useUnitsInRequests`); undefined: none named. */
 export function setUnitsShown(units: UnitSystem | undefined): void {
   unitsShown = units;
 }

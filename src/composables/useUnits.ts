@@ -1,4 +1,3 @@
-import type { Pinia } from 'pinia';
 import { computed, watch } from 'vue';
 import { setUnitsShown } from '@/api/http';
 import { useCellarStore } from '@/stores/cellar';
@@ -13,13 +12,14 @@ export function useUnits() {
 }
 
 /**
- * Every request names the units this person reads, the same choice as `useUnits`, so the
- * server's own messages ("Demijohn 4 holds 5.55 US gal …") read in them. Called once at start;
- * the choice is handed to the API layer when it changes (at once: a request made right after
- * the switch already names the new units), not looked up on every request.
+ * Every request from a cellar's pages names the units this person reads, the same choice as
+ * `useUnits`, so the server's own messages ("Demijohn 4 holds 5.55 US gal …") read in them.
+ * Called by the layout of the cellar's pages (not at start, which would put the stores in the
+ * first script); the choice is handed to the API layer when it changes (at once: a request made
+ * right after the switch already names the new units), not looked up on every request.
  */
-export function sendUnitsWithRequests(pinia: Pinia): void {
-  const preferences = usePreferencesStore(pinia);
-  const cellar = useCellarStore(pinia);
+export function useUnitsInRequests(): void {
+  const preferences = usePreferencesStore();
+  const cellar = useCellarStore();
   watch(() => preferences.unitsFor(cellar.settings?.unitSystem), setUnitsShown, { immediate: true, flush: 'sync' });
 }

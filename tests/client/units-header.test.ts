@@ -1,8 +1,8 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createPinia, setActivePinia, type Pinia } from 'pinia';
+import { createPinia, setActivePinia } from 'pinia';
 import { addNote } from '@/api/batches';
 import { setUnitsShown } from '@/api/http';
-import { sendUnitsWithRequests } from '@/composables/useUnits';
+import { useUnitsInRequests } from '@/composables/useUnits';
 import { sendQueuedWrite } from '@/offline/send-queued-write';
 import { useCellarStore } from '@/stores/cellar';
 import { usePreferencesStore } from '@/stores/preferences';
@@ -13,14 +13,12 @@ const notesPath = `/api/cellars/${CELLAR_ID}/batches/${BATCH_ID}/notes`;
 
 describe('the units a request names for the server’s messages', () => {
   let api: FakeApi;
-  let pinia: Pinia;
 
   beforeEach(() => {
-    pinia = createPinia();
-    setActivePinia(pinia);
+    setActivePinia(createPinia());
     api = fakeApi();
     api.on('POST', notesPath, { status: 201, body: operationResult() });
-    sendUnitsWithRequests(pinia);
+    useUnitsInRequests();
   });
 
   afterEach(() => {
