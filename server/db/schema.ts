@@ -21,6 +21,7 @@ import { CreateInvitationsAndPasswordResets1796170410000 } from './migrations/17
 import { CreateMemberMailSettings1796170420000 } from './migrations/1796170420000-CreateMemberMailSettings';
 import { AddSharedRateLimits1796170500000 } from './migrations/1796170500000-AddSharedRateLimits';
 import { AddReadableDate1796170510000 } from './migrations/1796170510000-AddReadableDate';
+import { ReadableDateWithoutSubtransaction1796171200000 } from './migrations/1796171200000-ReadableDateWithoutSubtransaction';
 import { AddPhotoDisplayCopy1796170520000 } from './migrations/1796170520000-AddPhotoDisplayCopy';
 import { CreateAuditAndImportKeys1796170600000 } from './migrations/1796170600000-CreateAuditAndImportKeys';
 import { UniqueVesselNames1796170700000 } from './migrations/1796170700000-UniqueVesselNames';
@@ -63,4 +64,5 @@ export const migrations = [
   CreateDevices1796170800000,
   CreateIdempotencyKeys1796170900000,
   TastingScoresOnOwnScale1796171100000,
+  ReadableDateWithoutSubtransaction1796171200000,
 ];
