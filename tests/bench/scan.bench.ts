@@ -134,6 +134,21 @@ await withBenchDatabase(async ({ ds, dir }) => {
       () =>
         (performance as unknown as { getEntriesByType(type: string): { redirectCount: number }[] }).getEntriesByType('navigation')[0]!.redirectCount,
     );
+    if (process.env.BENCH_SCAN_TRACE) {
+      // The same run from the page's clock: the navigation's phases and each API request's start/sent/first byte/end.
+      // A string, not a function: tsx would wrap the page's named helpers in its own __name.
+      const phases = (await page.evaluate(`(() => {
+        const round = (n) => Math.round(Number(n));
+        const nav = performance.getEntriesByType('navigation')[0];
+        const marks = ['redirectEnd', 'fetchStart', 'workerStart', 'responseStart', 'responseEnd', 'domInteractive', 'domContentLoadedEventEnd'];
+        const requests = performance
+          .getEntriesByType('resource')
+          .filter((r) => r.name.includes('/api/'))
+          .map((r) => new URL(r.name).pathname.replace(/[0-9a-f-]{36}/g, ':id') + ' ' + [r.startTime, r.requestStart, r.responseStart, r.responseEnd].map(round).join('/'));
+        return [marks.map((m) => m + ' ' + round(nav[m])).join(', '), ...requests];
+      })()`)) as string[];
+      console.log(`  page clock: ${phases.join('\n              ')}\n  record on screen ${Math.round(recordMs)}, page ${Math.round(pageMs)}`);
+    }
     if (redirected !== 1) throw new Error(`expected the label's one redirect inside the measured navigation, saw ${redirected}`);
     if (!page.url().includes(`/vessels/${cellar.vesselId}`)) throw new Error(`label opened ${page.url()}`);
     await page.close();
