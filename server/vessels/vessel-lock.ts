@@ -3,6 +3,7 @@ import { vesselState } from '../../shared/domain/vessel-state';
 import type { UnitSystem } from '../../shared/calc';
 import type { Actor } from '../core/actor';
 import { volumeText } from '../core/litres';
+import { localDateTime } from '../core/local-date';
 import { Batch } from '../entities/batch.entity';
 import { Cellar } from '../entities/cellar.entity';
 import { Vessel } from '../entities/vessel.entity';
@@ -15,25 +16,29 @@ export interface VesselRef {
 }
 
 /** "now holds Quince cyser (18.5 L)" / "is now empty and dirty", the volume in `units`. */
-export async function describeVesselNow(tx: EntityManager, vessel: Vessel, units: UnitSystem): Promise<string> {
+async function describeVesselNow(tx: EntityManager, vessel: Vessel, cellar: Cellar, units: UnitSystem): Promise<string> {
   if (vessel.retiredAt) return 'is now retired';
   if (vessel.batchId) {
     const batch = await tx.getRepository(Batch).findOneBy({ id: vessel.batchId });
     return `now holds ${batch?.name ?? 'another batch'} (${volumeText(vessel.volumeL ?? 0, units)})`;
   }
-  const cellar = await tx.getRepository(Cellar).findOneByOrFail({ id: vessel.cellarId });
   return `is now empty and ${vesselState(vessel, cellar.sanitisedValidDays)}`;
 }
 
-/** 409 naming the vessel, what it is now (in the actor's units) and when it changed. */
+/**
+ * 409 naming the vessel, what it is now (in the actor's units) and when it changed, by the
+ * cellar's clock: the time the people working in it would have seen.
+ */
 export async function vesselChangedError(
   tx: EntityManager,
   vessel: Vessel,
   units: UnitSystem,
   what = 'changed while you were working',
 ): Promise<ConflictError> {
-  const when = vessel.updatedAt.toISOString().slice(0, 16).replace('T', ' ');
-  return new ConflictError(`${vessel.name} ${what}: it ${await describeVesselNow(tx, vessel, units)} (changed ${when} UTC). Reload and try again.`, {
+  const cellar = await tx.getRepository(Cellar).findOneByOrFail({ id: vessel.cellarId });
+  const when = `${localDateTime(vessel.updatedAt, cellar.timeZone)} ${cellar.timeZone === 'UTC' ? 'UTC' : `${cellar.timeZone} time`}`;
+  const now = await describeVesselNow(tx, vessel, cellar, units);
+  return new ConflictError(`${vessel.name} ${what}: it ${now} (changed ${when}). Reload and try again.`, {
     vesselId: vessel.id,
     currentVersion: vessel.version,
   });

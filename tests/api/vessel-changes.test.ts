@@ -56,6 +56,19 @@ describe('PATCH /vessels/:vesselId', () => {
     expect(res.body.message).toMatch(/^Stale carboy changed while you were working/);
   });
 
+  it("says when it changed by the cellar's clock", async () => {
+    const away = await makeCellarWithCrew(ds);
+    // IANA time zone database: India Standard Time is UTC+05:30 all year (no daylight saving since 1945).
+    await ds.query(`UPDATE cellars SET time_zone = 'Asia/Kolkata' WHERE id = $1`, [away.cellar.id]);
+    const awayAs = await agentsFor(app, away, TEST_PASSWORD);
+    const created = await awayAs.hand.post(vessels(away.cellar.id)).send({ name: 'Far carboy', kind: 'carboy', material: 'glass', capacityL: 23 });
+    await awayAs.hand.patch(vessel(created.body.id, away.cellar.id)).send({ notes: 'first' }).expect(200);
+    await ds.query(`UPDATE vessels SET updated_at = '2026-07-01T10:20:00Z' WHERE id = $1`, [created.body.id]);
+    const res = await awayAs.hand.patch(vessel(created.body.id, away.cellar.id)).send({ notes: 'second', expectedVersion: created.body.version });
+    expect(res.status).toBe(409);
+    expect(res.body.message).toContain('(changed 2026-07-01 15:50 Asia/Kolkata time)');
+  });
+
   it('refuses a Guest, another cellar and bad fields', async () => {
     const v = await create({ name: 'Guarded' });
     expect((await as.guest.patch(vessel(v.id)).send({ name: 'Guest' })).status).toBe(403);
@@ -137,7 +150,10 @@ describe('POST /vessels/:vesselId/retirement', () => {
   it('retires only an empty vessel, keeps its place, and brings it back dirty', async () => {
     const v = await create({ name: 'Retiring carboy', state: 'sanitised' });
     const rack = await makeRack(ds, crew.cellar.id, 'Retirement rack', [2]);
-    await as.hand.put(`${vessel(v.id)}/place`).send({ to: { shelfId: rack.shelfIds[0], slot: 1 } }).expect(200);
+    await as.hand
+      .put(`${vessel(v.id)}/place`)
+      .send({ to: { shelfId: rack.shelfIds[0], slot: 1 } })
+      .expect(200);
     const retired = await as.hand.post(`${vessel(v.id)}/retirement`).send({ retired: true });
     expect(retired.status).toBe(200);
     expect(retired.body).toMatchObject({ state: 'retired', place: { shelfId: rack.shelfIds[0], slot: 1 } });
