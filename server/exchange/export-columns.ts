@@ -3,7 +3,8 @@ import type { BatchSummary } from '../../shared/schemas/batches';
 import type { BottleCase, BottleLot } from '../../shared/schemas/bottles';
 import type { Vessel } from '../../shared/schemas/vessels';
 import type { ExportedEntry } from '../journal/journal-export';
-import { isoInZone, unitWriter, type Cell, type UnitSystem } from './csv-cells';
+import { isoInZone } from '../core/local-date';
+import { unitWriter, type Cell, type UnitSystem } from './csv-cells';
 import type { CsvColumn } from './csv-stream';
 
 /** A reading with the batch it belongs to. */
