@@ -1,11 +1,12 @@
 import { In, type EntityManager } from 'typeorm';
 import { vesselState } from '../../shared/domain/vessel-state';
 import type { UnitSystem } from '../../shared/calc';
+import { loadCellar } from '../cellars/load-cellar';
 import type { Actor } from '../core/actor';
 import { volumeText } from '../core/litres';
 import { localDateTime } from '../core/local-date';
 import { Batch } from '../entities/batch.entity';
-import { Cellar } from '../entities/cellar.entity';
+import type { Cellar } from '../entities/cellar.entity';
 import { Vessel } from '../entities/vessel.entity';
 import { BadRequestError, ConflictError, NotFoundError } from '../http/errors';
 
@@ -35,7 +36,7 @@ export async function vesselChangedError(
   units: UnitSystem,
   what = 'changed while you were working',
 ): Promise<ConflictError> {
-  const cellar = await tx.getRepository(Cellar).findOneByOrFail({ id: vessel.cellarId });
+  const cellar = await loadCellar(tx, vessel.cellarId);
   const when = `${localDateTime(vessel.updatedAt, cellar.timeZone)} ${cellar.timeZone === 'UTC' ? 'UTC' : `${cellar.timeZone} time`}`;
   const now = await describeVesselNow(tx, vessel, cellar, units);
   return new ConflictError(`${vessel.name} ${what}: it ${now} (changed ${when}). Reload and try again.`, {
