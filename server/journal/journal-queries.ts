@@ -1,5 +1,13 @@
 import type { EntityManager } from 'typeorm';
-import { amendedPayloads, compareEntries, readingsView, type JournalRecord, type ReadingView } from '../../shared/domain/journal';
+import {
+  amendedPayloads,
+  compareEntries,
+  mergedChanges,
+  readingsView,
+  withChanges,
+  type JournalRecord,
+  type ReadingView,
+} from '../../shared/domain/journal';
 import type { JournalKind, JournalPayload } from '../../shared/schemas/journal';
 
 /**
@@ -172,19 +180,32 @@ const TASK_EVENT_KINDS = ['reading', 'racked', 'addition', 'removed', 'topped-up
 
 /**
  * The entries of these batches that plans count from or that complete tasks, with their
- * corrections applied, in the journal's order: one statement however many batches.
+ * corrections applied, per batch in the journal's order: one statement however many batches.
  */
-export async function taskEvents(tx: EntityManager, batchIds: string[], timeZone: string): Promise<TaskEventRow[]> {
-  if (batchIds.length === 0) return [];
+export async function taskEvents(tx: EntityManager, batchIds: string[], timeZone: string): Promise<Map<string, TaskEventRow[]>> {
+  const byBatch = new Map<string, TaskEventRow[]>();
+  if (batchIds.length === 0) return byBatch;
   // The local date comes from PostgreSQL's time zone rules: one conversion per row, no clock arithmetic here.
+  // Rows come in the index's order, so each batch's sort below is one pass over entries already in order.
   const records: (JournalRecord & { batchId: string; kind: JournalKind; occurredAt: Date; localOn: string })[] = await tx.query(
     `SELECT ${ROW_COLUMNS}, to_char(j.occurred_at AT TIME ZONE $3, 'YYYY-MM-DD') AS "localOn" FROM journal_entries j
-      WHERE j.batch_id = ANY($1) AND (j.kind = ANY($2) OR (j.kind = 'amendment' AND j.amends_entry_id IS NOT NULL))`,
+      WHERE j.batch_id = ANY($1) AND (j.kind = ANY($2) OR (j.kind = 'amendment' AND j.amends_entry_id IS NOT NULL))
+      ORDER BY j.batch_id, j.occurred_at, j.recorded_at, j.id`,
     [batchIds, TASK_EVENT_KINDS, timeZone],
   );
-  const amended = amendedPayloads(records);
-  return records
-    .filter((r) => r.kind !== 'amendment')
-    .sort(compareEntries)
-    .map((r) => ({ id: r.id, batchId: r.batchId, occurredAt: r.occurredAt, localOn: r.localOn, payload: amended.get(r.id)! }));
+  const changes = mergedChanges(records);
+  const recordsOf = new Map<string, typeof records>();
+  for (const r of records) {
+    if (r.kind === 'amendment') continue;
+    const list = recordsOf.get(r.batchId);
+    if (list) list.push(r);
+    else recordsOf.set(r.batchId, [r]);
+  }
+  for (const [batchId, list] of recordsOf) {
+    byBatch.set(
+      batchId,
+      list.sort(compareEntries).map((r) => ({ id: r.id, batchId, occurredAt: r.occurredAt, localOn: r.localOn, payload: withChanges(r, changes) })),
+    );
+  }
+  return byBatch;
 }

@@ -74,14 +74,19 @@ function toFactEvent(row: TaskEventRow): FactEvent | null {
 
 /** Each batch's facts for the rule engine, by batch id. */
 export async function batchFacts(tx: EntityManager, batches: TaskBatch[], timeZone: string): Promise<Map<string, BatchFacts>> {
-  const facts = new Map<string, BatchFacts>(batches.map((b) => [b.id, { batchId: b.id, startedOn: b.startedOn, stage: b.stage, events: [] }]));
-  for (const row of await taskEvents(
+  const eventsOf = await taskEvents(
     tx,
     batches.map((b) => b.id),
     timeZone,
-  )) {
-    const event = toFactEvent(row);
-    if (event) facts.get(row.batchId)?.events.push(event);
+  );
+  const facts = new Map<string, BatchFacts>();
+  for (const b of batches) {
+    const events: FactEvent[] = [];
+    for (const row of eventsOf.get(b.id) ?? []) {
+      const event = toFactEvent(row);
+      if (event) events.push(event);
+    }
+    facts.set(b.id, { batchId: b.id, startedOn: b.startedOn, stage: b.stage, events });
   }
   return facts;
 }

@@ -51,10 +51,16 @@ export function mergedChanges(entries: readonly JournalRecord[]): Map<string, Re
   return changes;
 }
 
+/** An entry's payload with the merged changes of its amendments applied (unchanged without any). */
+export function withChanges(entry: JournalRecord, changes: ReadonlyMap<string, Record<string, unknown>>): JournalPayload {
+  const own = changes.get(entry.id);
+  return (own ? { ...entry.payload, ...own } : entry.payload) as JournalPayload;
+}
+
 /** Every entry's payload as corrected by its amendments (entries without any unchanged). */
 export function amendedPayloads(entries: readonly JournalRecord[]): Map<string, JournalPayload> {
   const changes = mergedChanges(entries);
-  return new Map(entries.map((e) => [e.id, (changes.has(e.id) ? { ...e.payload, ...changes.get(e.id) } : e.payload) as JournalPayload]));
+  return new Map(entries.map((e) => [e.id, withChanges(e, changes)]));
 }
 
 /**
@@ -62,9 +68,7 @@ export function amendedPayloads(entries: readonly JournalRecord[]): Map<string, 
  * @param journal - the batch's entries (any order); only amendments of `entry` matter
  */
 export function effectivePayload(entry: JournalRecord, journal: readonly JournalRecord[]): JournalPayload {
-  const own = journal.filter((e) => e.amendsEntryId === entry.id);
-  const changes = mergedChanges(own).get(entry.id);
-  return (changes ? { ...entry.payload, ...changes } : entry.payload) as JournalPayload;
+  return withChanges(entry, mergedChanges(journal.filter((e) => e.amendsEntryId === entry.id)));
 }
 
 /** A gravity reading as the Batch page, the chart and the fermentation state read it. */

@@ -90,6 +90,24 @@ describe('GET /tasks', () => {
     expect(await taskOf(id, key)).toMatchObject({ status: 'done', closed: { byJournal: true } });
   });
 
+  it('follows a corrected take-out date, the later of two corrections winning', async () => {
+    const { result } = await batchInVessels(ds, crew, [20], { startedOn: daysAgo(50) });
+    const id = result.batch.id;
+    const added = await crew.as.hand
+      .post(`${crew.batches}/${id}/additions`)
+      .send({ category: 'oak', name: 'Oak spiral', amount: 1, unit: 'pcs', removeOn: daysAgo(-5) })
+      .expect(201);
+    const key = `${id}/oak-out/${added.body.entryId}`;
+    const amend = (removeOn: string) =>
+      crew.as.keeper
+        .post(`${crew.batches}/${id}/journal/${added.body.entryId}/amendments`)
+        .send({ reason: 'Misread the calendar', changes: { removeOn } })
+        .expect(201);
+    await amend(daysAgo(-9));
+    await amend(daysAgo(-12));
+    expect(await taskOf(id, key)).toMatchObject({ what: 'oak-out', dueOn: daysAgo(-12), status: 'open' });
+  });
+
   it('filters by batch and answers a field error for a bad filter', async () => {
     const { result } = await batchInVessels(ds, crew, [20], { startedOn: daysAgo(35) });
     const tasks = await tasksOf(crew.as.guest, { batchId: result.batch.id });

@@ -8,13 +8,22 @@ import type { Period } from '../../schemas/plans';
 
 const DAY_MS = 86_400_000;
 
+/** The digit at `i` of a YYYY-MM-DD date, read without cutting the string: this runs for every task of every batch. */
+const digit = (date: string, i: number): number => date.charCodeAt(i) - 48;
+
+const yearOf = (date: string): number => digit(date, 0) * 1000 + digit(date, 1) * 100 + digit(date, 2) * 10 + digit(date, 3);
+
+/** Milliseconds since the epoch of a YYYY-MM-DD date at 00:00 UTC (Date.UTC carries the calendar). */
 function toUtc(date: string): number {
-  const [y, m, d] = date.split('-').map(Number);
-  return Date.UTC(y!, m! - 1, d!);
+  return Date.UTC(yearOf(date), digit(date, 5) * 10 + digit(date, 6) - 1, digit(date, 8) * 10 + digit(date, 9));
 }
 
+const twoDigits = (n: number): string => (n < 10 ? `0${n}` : `${n}`);
+
+/** The YYYY-MM-DD date of a UTC moment (a four-digit year, as the dates are written). */
 function fromUtc(ms: number): string {
-  return new Date(ms).toISOString().slice(0, 10);
+  const at = new Date(ms);
+  return `${String(at.getUTCFullYear()).padStart(4, '0')}-${twoDigits(at.getUTCMonth() + 1)}-${twoDigits(at.getUTCDate())}`;
 }
 
 export function addDays(date: string, days: number): string {
@@ -23,12 +32,11 @@ export function addDays(date: string, days: number): string {
 
 /** The same day `months` later, or the month's last day when it has no such day. */
 export function addMonths(date: string, months: number): string {
-  const [y, m, d] = date.split('-').map(Number);
-  const monthIndex = m! - 1 + months;
-  const year = y! + Math.floor(monthIndex / 12);
+  const monthIndex = digit(date, 5) * 10 + digit(date, 6) - 1 + months;
+  const year = yearOf(date) + Math.floor(monthIndex / 12);
   const month = ((monthIndex % 12) + 12) % 12;
   const lastDay = new Date(Date.UTC(year, month + 1, 0)).getUTCDate();
-  return fromUtc(Date.UTC(year, month, Math.min(d!, lastDay)));
+  return fromUtc(Date.UTC(year, month, Math.min(digit(date, 8) * 10 + digit(date, 9), lastDay)));
 }
 
 /** `date` plus `times` periods, counted from `date` itself so month ends do not drift. */

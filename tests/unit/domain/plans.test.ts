@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { BatchFacts, FactEvent } from '../../../shared/domain/plans/batch-facts';
 import { computeTasks } from '../../../shared/domain/plans/compute-tasks';
 import { DEFAULT_PLANS } from '../../../shared/domain/plans/default-plans';
-import { addMonths, addPeriod, daysBetween } from '../../../shared/domain/plans/local-dates';
+import { addDays, addMonths, addPeriod, daysBetween } from '../../../shared/domain/plans/local-dates';
 import { planRuleSchema, planRulesSchema, type PlanRule, type PlanRuleInput } from '../../../shared/schemas/plans';
 
 const B = '00000000-0000-4000-8000-000000000001';
@@ -30,6 +30,24 @@ describe('local dates (calendar arithmetic)', () => {
     expect(addPeriod('2026-03-28', { count: 1, unit: 'days' })).toBe('2026-03-29');
     expect(addPeriod('2026-03-28', { count: 2, unit: 'days' })).toBe('2026-03-30');
     expect(daysBetween('2026-10-24', '2026-10-26')).toBe(2);
+  });
+
+  it('crosses months, years and leap days by the Gregorian calendar', () => {
+    // Gregorian rule: a leap year is divisible by 4, except centuries not divisible by 400.
+    expect(addDays('2024-02-28', 1)).toBe('2024-02-29');
+    expect(addDays('2023-02-28', 1)).toBe('2023-03-01');
+    expect(addDays('2100-02-28', 1)).toBe('2100-03-01');
+    expect(addDays('2000-02-28', 1)).toBe('2000-02-29');
+    expect(addDays('2026-12-31', 1)).toBe('2027-01-01');
+    expect(addDays('2027-01-01', -1)).toBe('2026-12-31');
+    expect(addDays('2026-03-01', -1)).toBe('2026-02-28');
+    expect(addDays('2026-01-01', 365)).toBe('2027-01-01'); // 2026 has 365 days
+    expect(addDays('1999-12-31', 1)).toBe('2000-01-01');
+    expect(addMonths('2026-12-15', 1)).toBe('2027-01-15');
+    expect(addMonths('2026-03-31', -1)).toBe('2026-02-28');
+    expect(addMonths('2026-01-15', -13)).toBe('2024-12-15');
+    expect(daysBetween('2024-01-01', '2025-01-01')).toBe(366); // 2024 is a leap year
+    expect(daysBetween('2026-03-01', '2026-02-01')).toBe(-28);
   });
 });
 
