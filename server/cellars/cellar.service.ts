@@ -3,6 +3,7 @@ import type { Role } from '../../shared/roles';
 import type { Cellar as CellarDto, CellarUpdate } from '../../shared/schemas/cellars';
 import { requireRole, type Actor } from '../core/actor';
 import { Cellar } from '../entities/cellar.entity';
+import { loadCellar } from './load-cellar';
 
 function toDto(cellar: Cellar, role: Role): CellarDto {
   return {
@@ -20,13 +21,11 @@ function toDto(cellar: Cellar, role: Role): CellarDto {
 
 export async function getCellar(actor: Actor, tx: EntityManager): Promise<CellarDto> {
   requireRole(actor, 'guest');
-  const cellar = await tx.getRepository(Cellar).findOneByOrFail({ id: actor.cellarId });
-  return toDto(cellar, actor.role);
+  return toDto(await loadCellar(tx, actor.cellarId), actor.role);
 }
 
 export async function updateCellar(actor: Actor, tx: EntityManager, changes: CellarUpdate): Promise<CellarDto> {
   requireRole(actor, 'keeper');
-  const repo = tx.getRepository(Cellar);
-  await repo.update({ id: actor.cellarId }, changes);
-  return toDto(await repo.findOneByOrFail({ id: actor.cellarId }), actor.role);
+  await tx.getRepository(Cellar).update({ id: actor.cellarId }, changes);
+  return toDto(await loadCellar(tx, actor.cellarId), actor.role);
 }

@@ -4,9 +4,9 @@ import { sanitisedUntil } from '../../shared/domain/vessel-state';
 import type { CleaningState, Vessel as VesselDto, VesselDetail, VesselKind } from '../../shared/schemas/vessels';
 import { recordAudit } from '../audit/audit-log';
 import { moveSummary } from '../audit/move-summary';
+import { loadCellar } from '../cellars/load-cellar';
 import { requireRole, type Actor } from '../core/actor';
 import { volumeText } from '../core/litres';
-import { Cellar } from '../entities/cellar.entity';
 import { Vessel } from '../entities/vessel.entity';
 import { ConflictError, NotFoundError } from '../http/errors';
 import { lastVesselReading } from '../journal/journal-queries';
@@ -39,7 +39,7 @@ async function lockOne(tx: EntityManager, actor: Actor, vesselId: string, expect
 }
 
 async function validDays(tx: EntityManager, cellarId: string): Promise<number> {
-  return (await tx.getRepository(Cellar).findOneByOrFail({ id: cellarId })).sanitisedValidDays;
+  return (await loadCellar(tx, cellarId)).sanitisedValidDays;
 }
 
 /** A page of the cellar's vessels, filtered and sorted in SQL. */
