@@ -16,14 +16,22 @@ export async function addReadings(ds: DataSource, crew: CellarCrew, batchId: str
   const ids: string[] = [];
   for (const r of readings) {
     const payload: JournalPayload = { kind: 'reading', sg: r.sg, temperatureC: null, calibrationC: 20, correctedSg: r.sg, ph: null, vesselId: null };
-    const entry = await ds.transaction((tx) => appendEntry(tx, contextOf(crew), batchId, payload, { occurredAt: new Date(Date.now() - r.daysAgo * DAY_MS) }));
+    const entry = await ds.transaction((tx) =>
+      appendEntry(tx, contextOf(crew), batchId, payload, { occurredAt: new Date(Date.now() - r.daysAgo * DAY_MS) }),
+    );
     ids.push(entry.id);
   }
   return ids;
 }
 
 /** Records an amendment that corrects fields of an earlier entry, as the Hand. */
-export async function amendEntry(ds: DataSource, crew: CellarCrew, batchId: string, entryId: string, changes: Record<string, unknown>): Promise<void> {
+export async function amendEntry(
+  ds: DataSource,
+  crew: CellarCrew,
+  batchId: string,
+  entryId: string,
+  changes: Record<string, unknown>,
+): Promise<void> {
   await ds.transaction((tx) =>
     appendEntry(tx, contextOf(crew), batchId, { kind: 'amendment', reason: 'misread the hydrometer', changes }, { amendsEntryId: entryId }),
   );
@@ -35,12 +43,20 @@ export async function addJournalEntry(
   cellarId: string,
   batchId: string,
   payload: Record<string, unknown> & { kind: string },
-  options: { occurredAt?: Date; amendsEntryId?: string } = {},
+  options: { occurredAt?: Date; recordedAt?: Date; amendsEntryId?: string } = {},
 ): Promise<string> {
   const [{ id }] = await ds.query(
-    `INSERT INTO journal_entries (cellar_id, batch_id, kind, payload, occurred_at, amends_entry_id)
-     VALUES ($1, $2, $3, $4, $5, $6) RETURNING id`,
-    [cellarId, batchId, payload.kind, JSON.stringify(payload), options.occurredAt ?? new Date(), options.amendsEntryId ?? null],
+    `INSERT INTO journal_entries (cellar_id, batch_id, kind, payload, occurred_at, recorded_at, amends_entry_id)
+     VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
+    [
+      cellarId,
+      batchId,
+      payload.kind,
+      JSON.stringify(payload),
+      options.occurredAt ?? new Date(),
+      options.recordedAt ?? new Date(),
+      options.amendsEntryId ?? null,
+    ],
   );
   return id;
 }
