@@ -22,6 +22,7 @@ import { CreateMemberMailSettings1796170420000 } from './migrations/179617042000
 import { AddSharedRateLimits1796170500000 } from './migrations/1796170500000-AddSharedRateLimits';
 import { AddReadableDate1796170510000 } from './migrations/1796170510000-AddReadableDate';
 import { ReadableDateWithoutSubtransaction1796171200000 } from './migrations/1796171200000-ReadableDateWithoutSubtransaction';
+import { IndexAdditionsAndRemovals1796171300000 } from './migrations/1796171300000-IndexAdditionsAndRemovals';
 import { AddPhotoDisplayCopy1796170520000 } from './migrations/1796170520000-AddPhotoDisplayCopy';
 import { CreateAuditAndImportKeys1796170600000 } from './migrations/1796170600000-CreateAuditAndImportKeys';
 import { UniqueVesselNames1796170700000 } from './migrations/1796170700000-UniqueVesselNames';
@@ -65,4 +66,5 @@ export const migrations = [
   CreateIdempotencyKeys1796170900000,
   TastingScoresOnOwnScale1796171100000,
   ReadableDateWithoutSubtransaction1796171200000,
+  IndexAdditionsAndRemovals1796171300000,
 ];

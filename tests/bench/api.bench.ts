@@ -19,6 +19,7 @@ import { promisify } from 'node:util';
 import express from 'express';
 import pg from 'pg';
 import { createApp } from '../../server/app';
+import { CONNECTION_OPTIONS } from '../../server/db/data-source';
 import { vesselLabel, type VesselLabelRow } from '../../server/labels/content';
 import { renderLabelsPdf } from '../../server/labels/render';
 import { labelTemplates } from '../../server/labels/templates';
@@ -190,7 +191,8 @@ await withBenchDatabase(async ({ ds }) => {
     }
   }
 
-  const floorPool = new pg.Pool({ connectionString: (ds.options as { url: string }).url, max: CONNECTIONS });
+  // The same server settings as the app's connections, so both sides run the same plans.
+  const floorPool = new pg.Pool({ connectionString: (ds.options as { url: string }).url, max: CONNECTIONS, options: CONNECTION_OPTIONS });
   // An idle connection that breaks is dropped by the pool; say so instead of stopping the run.
   floorPool.on('error', (err) => console.error(`floor pool: ${err.message}`));
   const floorApp = express();
