@@ -77,27 +77,26 @@ describe('GET /tasks', () => {
     });
   });
 
-  it('reminds to take the oak out on the date the form asked for', async () => {
+  /** A batch 50 days in, with oak put in that is to come out in 5 days: the batch, the addition and its take-out task's key. */
+  async function batchWithOak(name: string) {
     const { result } = await batchInVessels(ds, crew, [20], { startedOn: daysAgo(50) });
     const id = result.batch.id;
     const added = await crew.as.hand
       .post(`${crew.batches}/${id}/additions`)
-      .send({ category: 'oak', name: 'Medium toast oak cubes', amount: 30, unit: 'g', removeOn: daysAgo(-5) })
+      .send({ category: 'oak', name, amount: 30, unit: 'g', removeOn: daysAgo(-5) })
       .expect(201);
-    const key = `${id}/oak-out/${added.body.entryId}`;
+    return { id, added, key: `${id}/oak-out/${added.body.entryId}` };
+  }
+
+  it('reminds to take the oak out on the date the form asked for', async () => {
+    const { id, added, key } = await batchWithOak('Medium toast oak cubes');
     expect(await taskOf(id, key)).toMatchObject({ what: 'oak-out', title: 'Take out Medium toast oak cubes', dueOn: daysAgo(-5), status: 'open' });
     await crew.as.hand.post(`${crew.batches}/${id}/removals`).send({ additionEntryId: added.body.entryId }).expect(201);
     expect(await taskOf(id, key)).toMatchObject({ status: 'done', closed: { byJournal: true } });
   });
 
   it('follows a corrected take-out date, the later of two corrections winning', async () => {
-    const { result } = await batchInVessels(ds, crew, [20], { startedOn: daysAgo(50) });
-    const id = result.batch.id;
-    const added = await crew.as.hand
-      .post(`${crew.batches}/${id}/additions`)
-      .send({ category: 'oak', name: 'Oak spiral', amount: 1, unit: 'pcs', removeOn: daysAgo(-5) })
-      .expect(201);
-    const key = `${id}/oak-out/${added.body.entryId}`;
+    const { id, added, key } = await batchWithOak('Oak spiral');
     const amend = (removeOn: string) =>
       crew.as.keeper
         .post(`${crew.batches}/${id}/journal/${added.body.entryId}/amendments`)
