@@ -3,9 +3,7 @@
  * @param timeZone - an IANA zone such as Europe/Berlin
  */
 export function localDate(at: Date, timeZone: string): string {
-  const parts = new Intl.DateTimeFormat('en-GB', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(at);
-  const part = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
-  return `${part('year')}-${part('month')}-${part('day')}`;
+  return isoInZone(at, timeZone)!.slice(0, 10);
 }
 
 /**

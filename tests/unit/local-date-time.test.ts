@@ -22,3 +22,14 @@ describe('localDateTime', () => {
     expect(localDate(at, 'Pacific/Auckland')).toBe('2027-01-01');
   });
 });
+
+describe('localDate', () => {
+  it("gives the calendar day by the cellar's clock, on either side of its midnight", () => {
+    // Auckland is UTC+13 in summer (NZDT), Chicago UTC-6 in winter (CST): IANA time zone database.
+    expect(localDate(new Date('2026-12-31T10:59:00Z'), 'Pacific/Auckland')).toBe('2026-12-31');
+    expect(localDate(new Date('2026-12-31T11:00:00Z'), 'Pacific/Auckland')).toBe('2027-01-01');
+    expect(localDate(new Date('2027-01-01T05:59:00Z'), 'America/Chicago')).toBe('2026-12-31');
+    expect(localDate(new Date('2027-01-01T06:00:00Z'), 'America/Chicago')).toBe('2027-01-01');
+    expect(localDate(new Date('2026-12-31T23:59:59Z'), 'UTC')).toBe('2026-12-31');
+  });
+});
