@@ -21,14 +21,14 @@ import { CreateInvitationsAndPasswordResets1796170410000 } from './migrations/17
 import { CreateMemberMailSettings1796170420000 } from './migrations/1796170420000-CreateMemberMailSettings';
 import { AddSharedRateLimits1796170500000 } from './migrations/1796170500000-AddSharedRateLimits';
 import { AddReadableDate1796170510000 } from './migrations/1796170510000-AddReadableDate';
-import { ReadableDateWithoutSubtransaction1796171200000 } from './migrations/1796171200000-ReadableDateWithoutSubtransaction';
-import { IndexAdditionsAndRemovals1796171300000 } from './migrations/1796171300000-IndexAdditionsAndRemovals';
 import { AddPhotoDisplayCopy1796170520000 } from './migrations/1796170520000-AddPhotoDisplayCopy';
 import { CreateAuditAndImportKeys1796170600000 } from './migrations/1796170600000-CreateAuditAndImportKeys';
 import { UniqueVesselNames1796170700000 } from './migrations/1796170700000-UniqueVesselNames';
 import { CreateDevices1796170800000 } from './migrations/1796170800000-CreateDevices';
 import { CreateIdempotencyKeys1796170900000 } from './migrations/1796170900000-CreateIdempotencyKeys';
 import { TastingScoresOnOwnScale1796171100000 } from './migrations/1796171100000-TastingScoresOnOwnScale';
+import { ReadableDateWithoutSubtransaction1796171200000 } from './migrations/1796171200000-ReadableDateWithoutSubtransaction';
+import { IndexAdditionsAndRemovals1796171300000 } from './migrations/1796171300000-IndexAdditionsAndRemovals';
 
 /** Every entity, listed by hand (glob paths do not work under Vitest). */
 export const entities = [
