@@ -2,7 +2,7 @@ import { beforeAll, expect, it } from 'vitest';
 import request from 'supertest';
 import { Vessel } from '../../server/entities/vessel.entity';
 import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
-import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
+import { chooseFromMenu, describeInBrowser, signInThroughForm } from '../helpers/browser-app';
 
 describeInBrowser('Batches page: pitching a new batch, in Chromium', (env) => {
   let crew: CellarCrew;
@@ -30,14 +30,12 @@ describeInBrowser('Batches page: pitching a new batch, in Chromium', (env) => {
     await page.waitForSelector('[data-test=start-batch-dialog]');
 
     await page.fill('[data-test=start-name]', 'Sloe and honey melomel');
-    await page.click('[data-test=start-kind]');
-    await page.locator('.q-menu .q-item', { hasText: 'Melomel (fruit mead)' }).click();
+    await chooseFromMenu(page, '[data-test=start-kind]', 'Melomel (fruit mead)');
     await page.fill('[data-test=start-yeast]', 'Red wine yeast');
     await page.fill('[data-test=start-tolerance]', '14');
     await page.fill('[data-test=start-volume]', '18');
     await page.fill('[data-test=start-og]', '1.105');
-    await page.click('[data-test=start-vessels-vessel-0]');
-    await page.locator('.q-menu .q-item', { hasText: 'Carboy 19' }).click();
+    await chooseFromMenu(page, '[data-test=start-vessels-vessel-0]', 'Carboy 19');
     await page.fill('[data-test=start-vessels-volume-0]', '18');
     await page.click('[data-test=start-batch-submit]');
 

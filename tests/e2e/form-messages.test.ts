@@ -3,7 +3,7 @@ import request from 'supertest';
 import type { Page } from 'playwright-core';
 import { makeBatchInVessels } from '../helpers/batches';
 import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
-import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
+import { chooseFromMenu, describeInBrowser, signInThroughForm } from '../helpers/browser-app';
 
 describeInBrowser('Forms on a phone: out-of-range numbers, in Chromium at 390 px', (env) => {
   let crew: CellarCrew;
@@ -30,8 +30,7 @@ describeInBrowser('Forms on a phone: out-of-range numbers, in Chromium at 390 px
     await page.fill('[data-test=start-name]', 'Phone mead');
     await page.fill('[data-test=start-yeast]', 'Test wine yeast');
     await page.fill('[data-test=start-volume]', '-5');
-    await page.click('[data-test=start-vessels-vessel-0]');
-    await page.locator('.q-menu .q-item', { hasText: 'Phone carboy' }).click();
+    await chooseFromMenu(page, '[data-test=start-vessels-vessel-0]', 'Phone carboy');
     await page.fill('[data-test=start-vessels-volume-0]', '-3');
 
     // Nothing vanished: every part of the form is still there with what was typed.

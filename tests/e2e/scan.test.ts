@@ -8,7 +8,7 @@ import { makeLotWithCases } from '../helpers/bottles';
 import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { makeRack, placeDirectly } from '../helpers/places';
 import { makeVessel } from '../helpers/vessels';
-import { describeInBrowser, signInThroughForm } from '../helpers/browser-app';
+import { chooseFromMenu, describeInBrowser, signInThroughForm } from '../helpers/browser-app';
 import { brandColours } from '../../src/theme';
 
 describeInBrowser('scanning labels, in Chromium', (env) => {
@@ -214,10 +214,8 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     await signInThroughForm(page, baseUrl, crew.hand.email, TEST_PASSWORD);
     await page.goto(`${baseUrl}/c/${crew.cellar.id}/scan`);
     await page.click('[data-test=mode-shelf]');
-    await page.click('[data-test=check-rack]');
-    await page.click('.q-menu .q-item:has-text("Scan rack")');
-    await page.click('[data-test=check-shelf]');
-    await page.click('.q-menu .q-item:has-text("Shelf 1")');
+    await chooseFromMenu(page, '[data-test=check-rack]', 'Scan rack');
+    await chooseFromMenu(page, '[data-test=check-shelf]', 'Shelf 1');
     for (const v of [inPlace, strayed]) {
       await page.fill('[data-test=check-code-input]', v.code);
       await page.click('[data-test=check-code-submit]');

@@ -63,4 +63,4 @@ export interface BrowserEnv {
   ds: Awaited<ReturnType<typeof testApp>>['ds'];
 }
 
-export { signInThroughForm } from './browser-steps';
+export { chooseFromMenu, signInThroughForm } from './browser-steps';

@@ -20,3 +20,15 @@ export async function logReadingThroughDialog(page: Page, sg: string): Promise<v
   await page.click('[data-test=reading-submit]');
   await page.waitForSelector('[data-test=reading-dialog]', { state: 'detached' });
 }
+
+/**
+ * Opens a select and clicks the option with this text, then waits for its menu to be gone.
+ * Quasar gives focus back to the select only when the menu has finished closing; text typed
+ * into the next field before then lands in the select and is lost.
+ * @param field - the select's data-test selector
+ */
+export async function chooseFromMenu(page: Page, field: string, option: string): Promise<void> {
+  await page.click(field);
+  await page.locator('.q-menu .q-item', { hasText: option }).click();
+  await page.waitForSelector('.q-menu', { state: 'detached' });
+}
