@@ -205,7 +205,15 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     // A label printed for another address still opens here: only the code matters.
     const photo = await QRCode.toBuffer(`https://cellar.example.test/s/${carboy.code}`, { margin: 4, scale: 8 });
     await page.setInputFiles('[data-test=scan-photo-file]', { name: 'label.png', mimeType: 'image/png', buffer: photo });
-    await page.waitForURL(vesselPage(carboy));
+    // Either the record opens, or the test fails at once with what the page said instead.
+    const said = page.locator('[data-test=scan-photo-error], [data-test=scan-message]').first();
+    const opened = page.waitForURL(vesselPage(carboy)).then(() => null);
+    const refused = said.waitFor().then(
+      () => said.textContent(),
+      () => null, // the page closed after the record opened
+    );
+    opened.catch(() => undefined);
+    expect(await Promise.race([opened, refused]), 'the Scan page showed a message instead of opening the record').toBeNull();
   });
 
   it('checks a shelf: lists the misplaced jug and records it on this shelf after one confirmation', async () => {
