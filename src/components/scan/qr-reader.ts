@@ -1,4 +1,5 @@
 import type * as Html5QrcodeModule from 'html5-qrcode';
+import type jsQR from 'jsqr';
 
 /** The QR reader's code could not be fetched (no signal in the cellar, a server hiccup): not a fault of the label. */
 export class QrReaderUnavailable extends Error {
@@ -8,14 +9,23 @@ export class QrReaderUnavailable extends Error {
   }
 }
 
+async function load<M>(importer: () => Promise<M>): Promise<M> {
+  try {
+    return await importer();
+  } catch (err) {
+    throw new QrReaderUnavailable(err);
+  }
+}
+
 /**
  * Loads html5-qrcode on first use (it is large, and most pages never scan). A failed load is
  * told apart from a failed decode, so the person is not asked to retake a good photo.
  */
-export async function loadQrReader(): Promise<typeof Html5QrcodeModule> {
-  try {
-    return await import('html5-qrcode');
-  } catch (err) {
-    throw new QrReaderUnavailable(err);
-  }
+export function loadQrReader(): Promise<typeof Html5QrcodeModule> {
+  return load(() => import('html5-qrcode'));
+}
+
+/** Loads jsQR, the second reader a photo gets when the first finds no code in it. */
+export async function loadSecondReader(): Promise<typeof jsQR> {
+  return (await load(() => import('jsqr'))).default;
 }
