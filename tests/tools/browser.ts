@@ -27,14 +27,18 @@ export function chromiumAvailable(): boolean {
  * the network on its own (this machine has none, and the page must not need any).
  */
 export async function launchBrowser(
-  options: { serviceWorkers?: 'allow' | 'block' } = {},
+  options: { serviceWorkers?: 'allow' | 'block'; fakeCameraVideo?: string } = {},
 ): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
   const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-chromium-'));
+  // A camera that films a video file (Y4M), allowed without asking: for tests of the in-app scanner.
+  const camera = options.fakeCameraVideo
+    ? ['--use-fake-device-for-media-stream', '--use-fake-ui-for-media-stream', `--use-file-for-fake-video-capture=${options.fakeCameraVideo}`]
+    : [];
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: CHROMIUM_PATH,
     headless: true,
     serviceWorkers: options.serviceWorkers ?? 'allow',
-    args: CHROMIUM_ARGS,
+    args: [...CHROMIUM_ARGS, ...camera],
   });
   return {
     context,

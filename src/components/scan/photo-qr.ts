@@ -1,13 +1,13 @@
-import { loadQrReader, loadSecondReader } from './qr-reader';
+import { loadQrReader } from './qr-reader';
+import { readWithSecondReader } from './second-reader';
 
 /** Longest side, in pixels, a photo is drawn at for the second reader: a phone's 12 MP photo would take seconds. */
 const SECOND_LOOK_MAX_SIDE = 1600;
 
 /**
- * Reads the QR code in a photo, in the browser (nothing is uploaded). html5-qrcode reads it
- * first; when it finds nothing, jsQR looks again. html5-qrcode's finder misses some sharp,
- * perfectly printed codes (17 of 700 random label codes when measured), and a screenshot of a
- * label sheet is exactly such a picture.
+ * Reads the QR code in a photo, in the browser (nothing is uploaded): html5-qrcode first, and
+ * the second reader when it finds nothing. A screenshot of a label sheet is just the kind of
+ * sharp picture the first one can miss.
  * @param workId - the id of an element html5-qrcode may draw into (it stays hidden)
  * @returns the text the code holds
  */
@@ -17,27 +17,16 @@ export async function readQrInPhoto(file: File, workId: string): Promise<string>
   try {
     return await decoder.scanFile(file, false);
   } catch (firstMiss) {
-    const text = await secondLook(file);
-    if (text === null) throw firstMiss;
-    return text;
+    const bitmap = await createImageBitmap(file).catch(() => null);
+    if (!bitmap) throw firstMiss; // not an image the browser can open
+    try {
+      const text = await readWithSecondReader(bitmap, bitmap.width, bitmap.height, SECOND_LOOK_MAX_SIDE);
+      if (text === null) throw firstMiss;
+      return text;
+    } finally {
+      bitmap.close();
+    }
   } finally {
     decoder.clear();
   }
-}
-
-async function secondLook(file: File): Promise<string | null> {
-  const jsQR = await loadSecondReader();
-  const bitmap = await createImageBitmap(file).catch(() => null);
-  if (!bitmap) return null; // not an image the browser can open
-  const scale = Math.min(1, SECOND_LOOK_MAX_SIDE / Math.max(bitmap.width, bitmap.height));
-  const width = Math.max(1, Math.round(bitmap.width * scale));
-  const height = Math.max(1, Math.round(bitmap.height * scale));
-  const canvas = document.createElement('canvas');
-  canvas.width = width;
-  canvas.height = height;
-  const context = canvas.getContext('2d', { willReadFrequently: true });
-  if (!context) return null;
-  context.drawImage(bitmap, 0, 0, width, height);
-  bitmap.close();
-  return jsQR(context.getImageData(0, 0, width, height).data, width, height)?.data ?? null;
 }
