@@ -25,7 +25,7 @@ export function loadQrReader(): Promise<typeof Html5QrcodeModule> {
   return load(() => import('html5-qrcode'));
 }
 
-/** Loads jsQR, the second reader a photo gets when the first finds no code in it. */
+/** Loads jsQR, the second reader, for a photo or a camera frame html5-qrcode finds no code in. */
 export async function loadSecondReader(): Promise<typeof jsQR> {
   return (await load(() => import('jsqr'))).default;
 }

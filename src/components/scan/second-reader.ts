@@ -3,8 +3,8 @@ import { loadSecondReader } from './qr-reader';
 /**
  * Reads a QR code with jsQR, the second reader: html5-qrcode's finder misses some sharp,
  * perfectly printed codes (17 of 700 random label codes in a picture; on a camera's clean feed
- * it missed the two such codes tried, for as long as it looked), and jsQR reads them. The picture is drawn at most `maxSide` pixels long first, which
- * keeps a large photo from taking seconds.
+ * it missed the two such codes tried, for as long as it looked), and jsQR reads them. The
+ * picture is first drawn at most `maxSide` pixels long, which keeps a large photo from taking seconds.
  * @returns the code's text, or null when jsQR finds none either
  */
 export async function readWithSecondReader(picture: CanvasImageSource, width: number, height: number, maxSide: number): Promise<string | null> {
