@@ -59,6 +59,22 @@ describe('GET /tasks', () => {
     expect(await taskOf(id, `${id}/weekly-reading/primary.1`)).toMatchObject({ status: 'open', bucket: 'upcoming' });
   });
 
+  it('counts a reading logged the day the next weekly reading shows for that one, and the missed one is no longer overdue', async () => {
+    // Started 13 days ago: readings due 6 days ago (missed) and tomorrow, shown a day ahead, so from today.
+    const { result } = await batchInVessels(ds, crew, [20], { startedOn: daysAgo(13) });
+    const id = result.batch.id;
+    expect(await taskOf(id, `${id}/weekly-reading/primary.0`)).toMatchObject({ dueOn: daysAgo(6), bucket: 'overdue', status: 'open' });
+
+    await crew.as.hand.post(`${crew.batches}/${id}/readings`).send({ sg: 1.05 }).expect(201);
+    expect(await taskOf(id, `${id}/weekly-reading/primary.1`)).toMatchObject({ dueOn: daysAgo(-1), status: 'done', closed: { byJournal: true } });
+    expect(await taskOf(id, `${id}/weekly-reading/primary.0`)).toBeUndefined();
+    // Nothing about readings is left to do now, looking two weeks ahead (Today) or only at today (the reminder mail).
+    for (const withinDays of [14, 0]) {
+      const due = await tasksOf(crew.as.guest, { batchId: id, buckets: 'overdue,today', withinDays });
+      expect(due.filter((t) => t.what === 'reading')).toEqual([]);
+    }
+  });
+
   it('completes the first racking with a racking, which brings a headspace check 3 days later', async () => {
     const { result, vessels } = await batchInVessels(ds, crew, [20], { startedOn: daysAgo(40) });
     const id = result.batch.id;

@@ -70,16 +70,22 @@ function titleOf(rule: PlanRule, occurrence: Occurrence): string {
  * The batch's tasks under these rules, soonest first. A repeating task's window runs until the
  * next one's starts, and the first journal entry of the right kind in its window completes it;
  * an open task is dropped once a later task of the same group (the same kind of work, or the
- * same addition) has fallen due, so a missed check never piles up behind the next one, and
- * once its rule has ended (its "until" came, or the batch left its vessels).
+ * same addition) has fallen due or been done, so a missed check never piles up behind the next
+ * one nor stays overdue after the work was done, and once its rule has ended (its "until"
+ * came, or the batch left its vessels).
  */
 export function computeTasks(rules: readonly PlanRule[], facts: BatchFacts, options: ComputeOptions): ComputedTask[] {
   if (facts.stage === 'finished') return [];
   const horizon = addDays(options.today, options.lookaheadDays);
   const historyFrom = addDays(options.today, -HISTORY_DAYS);
-  const all: (ComputedTask & { group: string; endsOn: string | null })[] = [];
+  const all: (ComputedTask & { group: string; endsOn: string | null; pastHorizon: boolean })[] = [];
   for (const rule of rules) {
-    const occurrences = occurrencesOf(rule, facts, horizon, historyFrom).sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : 0));
+    // Repeats are unrolled at least until the next one's window has opened, so the windows (and
+    // what the journal completes) are the same whatever the lookahead: a reminder mail (none)
+    // and the Tasks screen (two weeks) never disagree. Repeats past the horizon count for what is
+    // moot, and are left out of the answer.
+    const windowHorizon = [horizon, addDays(options.today, rule.showDaysAhead)].sort()[1]!;
+    const occurrences = occurrencesOf(rule, facts, windowHorizon, historyFrom).sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : 0));
     occurrences.forEach((occurrence, i) => {
       const showFrom = addDays(occurrence.dueOn, -rule.showDaysAhead);
       // Work on an addition counts from when it went in; other work from when the task shows.
@@ -99,14 +105,22 @@ export function computeTasks(rules: readonly PlanRule[], facts: BatchFacts, opti
         doneByJournal: done ? { entryId: done.id, on: done.on } : null,
         group: occurrence.group,
         endsOn: occurrence.endsOn,
+        pastHorizon: rule.when.type === 'every' && occurrence.dueOn > horizon,
       });
     });
   }
-  // The latest due date per group up to today: open tasks of that group due before it are moot.
+  // Per group, the latest due date up to today and the latest task the journal shows done: an
+  // open task due before either is moot (a later one fell due, or the work was done since).
   const latestDue = new Map<string, string>();
-  for (const t of all) if (t.dueOn <= options.today && t.dueOn > (latestDue.get(t.group) ?? '')) latestDue.set(t.group, t.dueOn);
+  const latestDone = new Map<string, string>();
+  for (const t of all) {
+    if (t.dueOn <= options.today && t.dueOn > (latestDue.get(t.group) ?? '')) latestDue.set(t.group, t.dueOn);
+    if (t.doneByJournal && t.dueOn > (latestDone.get(t.group) ?? '')) latestDone.set(t.group, t.dueOn);
+  }
+  const supersededBefore = (group: string) => [latestDue.get(group) ?? '', latestDone.get(group) ?? ''].sort()[1]!;
   return all
-    .filter((t) => t.doneByJournal !== null || (t.dueOn >= (latestDue.get(t.group) ?? '') && (t.endsOn === null || t.endsOn > options.today)))
-    .map(({ group: _group, endsOn: _endsOn, ...task }) => task)
+    .filter((t) => !t.pastHorizon)
+    .filter((t) => t.doneByJournal !== null || (t.dueOn >= supersededBefore(t.group) && (t.endsOn === null || t.endsOn > options.today)))
+    .map(({ group: _group, endsOn: _endsOn, pastHorizon: _pastHorizon, ...task }) => task)
     .sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
 }

@@ -1,3 +1,4 @@
+import { fc, test as propTest } from '@fast-check/vitest';
 import { describe, expect, it } from 'vitest';
 import type { BatchFacts, FactEvent } from '../../../shared/domain/plans/batch-facts';
 import { computeTasks } from '../../../shared/domain/plans/compute-tasks';
@@ -130,6 +131,23 @@ describe('computeTasks', () => {
     expect(tasks.find((t) => t.key.endsWith('weekly-reading/primary.1'))!.doneByJournal).toBeNull();
   });
 
+  it('counts a reading logged the day the next reading task shows for that one, and the missed one is then moot', () => {
+    // Mead plan (common practice): weekly readings in primary, each shown a day ahead. Started
+    // 1 March: due 8 March (missed), then 15 March, shown from 14 March, the day of the reading.
+    const logged = facts('primary', [{ kind: 'reading', id: 'r1', on: '2026-03-14', sg: 1.05 }]);
+    const readingTasks = (lookaheadDays: number) =>
+      computeTasks(mead, logged, { today: '2026-03-14', lookaheadDays })
+        .filter((t) => t.ruleId === 'weekly-reading')
+        .map((t) => [t.key.slice(B.length + 1), t.dueOn, t.doneByJournal?.entryId ?? 'open']);
+    expect(readingTasks(14)).toEqual([
+      ['weekly-reading/primary.1', '2026-03-15', 'r1'],
+      ['weekly-reading/primary.2', '2026-03-22', 'open'],
+    ]);
+    // A reminder looks no further than today: the same windows, so nothing is left to remind of.
+    expect(readingTasks(0)).toEqual([]);
+    expect(readingTasks(1)).toEqual([['weekly-reading/primary.1', '2026-03-15', 'r1']]);
+  });
+
   it('keeps only the latest missed task of a kind open (older ones are moot)', () => {
     const tasks = computeTasks(mead, facts('primary', []), { today: '2026-03-20', lookaheadDays: 3 });
     expect(keysDue(tasks).filter(([k]) => k!.startsWith('weekly-reading'))).toEqual([
@@ -207,6 +225,67 @@ describe('computeTasks', () => {
     ]);
     expect(tasks.some((t) => t.what === 'headspace-check' && t.dueOn > '2026-08-31')).toBe(false);
     expect(computeTasks(mead, facts('finished', events), { today: '2026-09-01', lookaheadDays: 0 })).toEqual([]);
+  });
+});
+
+// ---- what a screen or a mail sees does not depend on how far ahead it looks --------------------
+
+/** A day of 2026 (day 0 = 1 January), as an ISO date, without the code under test. */
+const dayOf2026 = (n: number) => new Date(Date.UTC(2026, 0, 1 + n)).toISOString().slice(0, 10);
+
+const eventArb: fc.Arbitrary<Omit<FactEvent, 'id' | 'on'> & { day: number }> = fc.oneof(
+  {
+    arbitrary: fc.record({
+      kind: fc.constant('reading' as const),
+      day: fc.integer({ min: 0, max: 200 }),
+      sg: fc.constantFrom(1.1, 1.05, 1.01, 1.0, 0.999),
+    }),
+    weight: 4,
+  },
+  fc.record({ kind: fc.constant('racking' as const), day: fc.integer({ min: 0, max: 200 }) }),
+  fc.record({ kind: fc.constant('topped-up' as const), day: fc.integer({ min: 0, max: 200 }) }),
+  fc.record({ kind: fc.constant('tasted' as const), day: fc.integer({ min: 0, max: 200 }) }),
+  fc.record({
+    kind: fc.constant('addition' as const),
+    day: fc.integer({ min: 0, max: 200 }),
+    category: fc.constantFrom('oak' as const, 'stabiliser' as const, 'fruit' as const),
+    name: fc.constant('Oak cubes'),
+    removeOn: fc.option(fc.integer({ min: 0, max: 260 }).map(dayOf2026), { nil: null }),
+  }),
+);
+
+describe('computeTasks whatever the lookahead', () => {
+  const plans = new Map(DEFAULT_PLANS.map((p) => [p.name, planRulesSchema.parse(p.rules)]));
+  propTest.prop(
+    [
+      fc.constantFrom(...plans.keys()),
+      fc.array(eventArb, { maxLength: 25 }),
+      fc.option(fc.integer({ min: 0, max: 230 }), { nil: undefined, freq: 2 }),
+      // A reminder looks no further than today (0); screens look weeks ahead.
+      fc.oneof(fc.constant(0), fc.integer({ min: 0, max: 20 })),
+      fc.integer({ min: 1, max: 120 }),
+    ],
+    { numRuns: 400 },
+  )('gives the same tasks up to the shorter horizon, done or open alike', (planName, drawn, someDay, shorter, more) => {
+    const plan = plans.get(planName)!;
+    // Often today is the day of the latest entry: a person logs something, then looks.
+    const todayDay = someDay ?? Math.max(0, ...drawn.map((e) => e.day));
+    const today = dayOf2026(todayDay);
+    // The journal so far, oldest first; an oak take-out for the first oak, when it came before today.
+    const events: FactEvent[] = drawn
+      .filter((e) => e.day <= todayDay)
+      .sort((a, b) => a.day - b.day)
+      .map(({ day, ...e }, i) => ({ ...e, id: `e${i}`, on: dayOf2026(day) }) as FactEvent);
+    const oak = events.find((e) => e.kind === 'addition' && e.category === 'oak');
+    if (oak && oak.kind === 'addition' && oak.removeOn && oak.removeOn <= today)
+      events.push({ kind: 'removed', id: 'out', on: oak.removeOn, additionId: oak.id });
+    events.sort((a, b) => (a.on < b.on ? -1 : a.on > b.on ? 1 : 0));
+    const batch = facts('primary', events, dayOf2026(0));
+    const repeats = new Set(plan.filter((r) => r.when.type === 'every').map((r) => r.id));
+    const near = computeTasks(plan, batch, { today, lookaheadDays: shorter });
+    const far = computeTasks(plan, batch, { today, lookaheadDays: shorter + more });
+    const nearHorizon = dayOf2026(todayDay + shorter);
+    expect(near).toEqual(far.filter((t) => !(repeats.has(t.ruleId) && t.dueOn > nearHorizon)));
   });
 });
 
