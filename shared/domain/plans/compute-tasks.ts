@@ -110,17 +110,18 @@ export function computeTasks(rules: readonly PlanRule[], facts: BatchFacts, opti
     });
   }
   // Per group, the latest due date up to today and the latest task the journal shows done: an
-  // open task due before either is moot (a later one fell due, or the work was done since).
+  // open task due before the first, or not after the second, is moot (a later one fell due, or
+  // the same work was done since; two rackings on one day give two re-racks due the same day).
   const latestDue = new Map<string, string>();
   const latestDone = new Map<string, string>();
   for (const t of all) {
     if (t.dueOn <= options.today && t.dueOn > (latestDue.get(t.group) ?? '')) latestDue.set(t.group, t.dueOn);
     if (t.doneByJournal && t.dueOn > (latestDone.get(t.group) ?? '')) latestDone.set(t.group, t.dueOn);
   }
-  const supersededBefore = (group: string) => [latestDue.get(group) ?? '', latestDone.get(group) ?? ''].sort()[1]!;
+  const moot = (t: (typeof all)[number]) => t.dueOn < (latestDue.get(t.group) ?? '') || t.dueOn <= (latestDone.get(t.group) ?? '');
   return all
     .filter((t) => !t.pastHorizon)
-    .filter((t) => t.doneByJournal !== null || (t.dueOn >= supersededBefore(t.group) && (t.endsOn === null || t.endsOn > options.today)))
+    .filter((t) => t.doneByJournal !== null || (!moot(t) && (t.endsOn === null || t.endsOn > options.today)))
     .map(({ group: _group, endsOn: _endsOn, pastHorizon: _pastHorizon, ...task }) => task)
     .sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
 }

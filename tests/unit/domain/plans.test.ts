@@ -148,6 +148,23 @@ describe('computeTasks', () => {
     expect(readingTasks(1)).toEqual([['weekly-reading/primary.1', '2026-03-15', 'r1']]);
   });
 
+  it('leaves no re-rack open after a racking when two rackings fell on one day', () => {
+    // Mead plan (common practice): rack again 90 days after each racking, shown 7 days ahead.
+    // Two rackings on 1 January give two re-racks due 1 April; a racking on 25 March does both.
+    const twice: FactEvent[] = [
+      { kind: 'racking', id: 'rk1', on: '2026-01-01' },
+      { kind: 'racking', id: 'rk2', on: '2026-01-01' },
+      { kind: 'racking', id: 'rk3', on: '2026-03-25' },
+    ];
+    const reRacks = computeTasks(mead, facts('secondary', twice, '2025-12-01'), { today: '2026-03-25', lookaheadDays: 14 })
+      .filter((t) => t.ruleId === 're-rack')
+      .map((t) => [t.key.slice(B.length + 1), t.dueOn, t.doneByJournal?.entryId ?? 'open']);
+    expect(reRacks).toEqual([
+      ['re-rack/rk2', '2026-04-01', 'rk3'],
+      ['re-rack/rk3', '2026-06-23', 'open'],
+    ]);
+  });
+
   it('keeps only the latest missed task of a kind open (older ones are moot)', () => {
     const tasks = computeTasks(mead, facts('primary', []), { today: '2026-03-20', lookaheadDays: 3 });
     expect(keysDue(tasks).filter(([k]) => k!.startsWith('weekly-reading'))).toEqual([
@@ -254,38 +271,61 @@ const eventArb: fc.Arbitrary<Omit<FactEvent, 'id' | 'on'> & { day: number }> = f
   }),
 );
 
-describe('computeTasks whatever the lookahead', () => {
-  const plans = new Map(DEFAULT_PLANS.map((p) => [p.name, planRulesSchema.parse(p.rules)]));
+const plans = new Map(DEFAULT_PLANS.map((p) => [p.name, planRulesSchema.parse(p.rules)]));
+
+/** A batch's journal up to a day, oldest first, and that day: often the day of its latest entry (a person logs, then looks). */
+const journalArb = fc
+  .tuple(fc.array(eventArb, { maxLength: 25 }), fc.option(fc.integer({ min: 0, max: 230 }), { nil: undefined, freq: 2 }))
+  .map(([drawn, someDay]) => {
+    const todayDay = someDay ?? Math.max(0, ...drawn.map((e) => e.day));
+    const today = dayOf2026(todayDay);
+    const events: FactEvent[] = drawn
+      .filter((e) => e.day <= todayDay)
+      .sort((a, b) => a.day - b.day)
+      .map(({ day, ...e }, i) => ({ ...e, id: `e${i}`, on: dayOf2026(day) }) as FactEvent);
+    // The first oak comes out on its date, when that came before today.
+    const oak = events.find((e) => e.kind === 'addition' && e.category === 'oak');
+    if (oak && oak.kind === 'addition' && oak.removeOn && oak.removeOn <= today)
+      events.push({ kind: 'removed', id: 'out', on: oak.removeOn, additionId: oak.id });
+    events.sort((a, b) => (a.on < b.on ? -1 : a.on > b.on ? 1 : 0));
+    return { todayDay, today, events };
+  });
+
+describe('computeTasks over any journal (default plans)', () => {
   propTest.prop(
     [
       fc.constantFrom(...plans.keys()),
-      fc.array(eventArb, { maxLength: 25 }),
-      fc.option(fc.integer({ min: 0, max: 230 }), { nil: undefined, freq: 2 }),
+      journalArb,
       // A reminder looks no further than today (0); screens look weeks ahead.
       fc.oneof(fc.constant(0), fc.integer({ min: 0, max: 20 })),
       fc.integer({ min: 1, max: 120 }),
     ],
     { numRuns: 400 },
-  )('gives the same tasks up to the shorter horizon, done or open alike', (planName, drawn, someDay, shorter, more) => {
+  )('gives the same tasks up to the shorter horizon, done or open alike', (planName, { todayDay, today, events }, shorter, more) => {
     const plan = plans.get(planName)!;
-    // Often today is the day of the latest entry: a person logs something, then looks.
-    const todayDay = someDay ?? Math.max(0, ...drawn.map((e) => e.day));
-    const today = dayOf2026(todayDay);
-    // The journal so far, oldest first; an oak take-out for the first oak, when it came before today.
-    const events: FactEvent[] = drawn
-      .filter((e) => e.day <= todayDay)
-      .sort((a, b) => a.day - b.day)
-      .map(({ day, ...e }, i) => ({ ...e, id: `e${i}`, on: dayOf2026(day) }) as FactEvent);
-    const oak = events.find((e) => e.kind === 'addition' && e.category === 'oak');
-    if (oak && oak.kind === 'addition' && oak.removeOn && oak.removeOn <= today)
-      events.push({ kind: 'removed', id: 'out', on: oak.removeOn, additionId: oak.id });
-    events.sort((a, b) => (a.on < b.on ? -1 : a.on > b.on ? 1 : 0));
     const batch = facts('primary', events, dayOf2026(0));
     const repeats = new Set(plan.filter((r) => r.when.type === 'every').map((r) => r.id));
     const near = computeTasks(plan, batch, { today, lookaheadDays: shorter });
     const far = computeTasks(plan, batch, { today, lookaheadDays: shorter + more });
     const nearHorizon = dayOf2026(todayDay + shorter);
     expect(near).toEqual(far.filter((t) => !(repeats.has(t.ruleId) && t.dueOn > nearHorizon)));
+  });
+
+  /** The work each kind of entry shows done (the issue's "logging a reading completes that batch's open reading task"). */
+  const WORK_DONE_BY: Record<'reading' | 'racking' | 'topped-up' | 'tasted', string[]> = {
+    reading: ['reading'],
+    racking: ['racking'],
+    'topped-up': ['headspace-check'],
+    tasted: ['tasting', 'milestone'],
+  };
+
+  propTest.prop([fc.constantFrom(...plans.keys()), journalArb, fc.constantFrom(...(Object.keys(WORK_DONE_BY) as (keyof typeof WORK_DONE_BY)[]))], {
+    numRuns: 400,
+  })('leaves no task of that work open that already shows, once the work is logged today', (planName, { today, events }, kind) => {
+    const logged = [...events, { kind, id: 'now', on: today, sg: 1.0 } as FactEvent];
+    const tasks = computeTasks(plans.get(planName)!, facts('primary', logged, dayOf2026(0)), { today, lookaheadDays: 14 });
+    const stillOpen = tasks.filter((t) => WORK_DONE_BY[kind].includes(t.what) && t.doneByJournal === null && t.showFrom <= today);
+    expect(stillOpen.map((t) => [t.key, t.dueOn])).toEqual([]);
   });
 });
 
