@@ -1,4 +1,5 @@
 import { fc, test as propTest } from '@fast-check/vitest';
+import { isDeepStrictEqual as isDeepEqual } from 'node:util';
 import { describe, expect, it } from 'vitest';
 import type { BatchFacts, FactEvent } from '../../../shared/domain/plans/batch-facts';
 import { computeTasks } from '../../../shared/domain/plans/compute-tasks';
@@ -310,6 +311,20 @@ describe('computeTasks over any journal (default plans)', () => {
     const nearHorizon = dayOf2026(todayDay + shorter);
     expect(near).toEqual(far.filter((t) => !(repeats.has(t.ruleId) && t.dueOn > nearHorizon)));
   });
+
+  propTest.prop([fc.constantFrom(...plans.keys()), journalArb, fc.integer({ min: 1, max: 40 })], { numRuns: 400 })(
+    'keeps every task still ahead under the same key and dates on the following days, when nothing is logged',
+    (planName, { todayDay, today, events }, daysLater) => {
+      // What people did to a task is stored under its key, so a task must not change key or date by itself.
+      const plan = plans.get(planName)!;
+      const batch = facts('primary', events, dayOf2026(0));
+      const later = dayOf2026(todayDay + daysLater);
+      const seen = (day: string) => computeTasks(plan, batch, { today: day, lookaheadDays: 60 });
+      const ahead = seen(today).filter((t) => t.dueOn > later && t.dueOn <= dayOf2026(todayDay + 60));
+      const then = new Map(seen(later).map((t) => [t.key, t]));
+      expect(ahead.filter((t) => !isDeepEqual(then.get(t.key), t)).map((t) => [t.key, t.dueOn, then.get(t.key)?.dueOn ?? 'gone'])).toEqual([]);
+    },
+  );
 
   /** The work each kind of entry shows done (the "logging a reading completes that batch's open reading task"). */
   const WORK_DONE_BY: Record<'reading' | 'racking' | 'topped-up' | 'tasted', string[]> = {
