@@ -1,0 +1,71 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { flushPromises } from '@vue/test-utils';
+import { taskListSchema, type Task } from '@shared/schemas/tasks';
+import NextTaskCard from '@/components/tasks/NextTaskCard.vue';
+import { fakeApi, type FakeAnswer } from './support/fake-api';
+import { BATCH_ID, CELLAR_ID, signIn } from './support/fixtures';
+import { mountInApp } from './support/mount-in-app';
+
+const TODAY = '2026-03-14';
+
+/** A task of the batch as the server lists it, checked against the shared schema. */
+function task(ruleId: string, title: string, dueOn: string): Task {
+  return {
+    key: `${BATCH_ID}/${ruleId}/primary.0`,
+    batch: { id: BATCH_ID, name: 'Sloe Hedge Melomel', kind: 'melomel', stage: 'primary' },
+    vesselNames: ['Fermenter 1'],
+    what: 'reading',
+    title,
+    dueOn,
+    showFrom: dueOn,
+    rule: { id: ruleId, note: 'Common practice: weekly in primary.' },
+    reason: 'every week while in primary',
+    status: 'open',
+    bucket: dueOn < TODAY ? 'overdue' : dueOn === TODAY ? 'today' : 'upcoming',
+    snoozedUntil: null,
+    closed: null,
+  };
+}
+const listOf = (...tasks: Task[]): FakeAnswer => ({ body: taskListSchema.parse({ today: TODAY, tasks, more: 0 }) });
+const shownTitle = () => document.querySelector('[data-test=next-task] .q-item__label')?.textContent?.trim() ?? null;
+
+afterEach(() => {
+  document.body.innerHTML = '';
+});
+
+describe('Next task card (Vessel page)', () => {
+  it('keeps the task shown while it asks again after a reading, then shows the next one', async () => {
+    const api = fakeApi();
+    signIn(api);
+    const tasksPath = `/api/cellars/${CELLAR_ID}/tasks`;
+    api.on('GET', tasksPath, listOf(task('weekly-reading', 'Take a reading', '2026-03-13')));
+    const { wrapper } = await mountInApp(NextTaskCard, `/c/${CELLAR_ID}/vessels`, { props: { batchId: BATCH_ID, cellarId: CELLAR_ID, renew: 0 } });
+    await vi.waitFor(() => expect(shownTitle()).toBe('Take a reading'));
+
+    // The server answers only when told: until then the card must not empty itself.
+    let answer!: (a: FakeAnswer) => void;
+    api.on('GET', tasksPath, () => new Promise<FakeAnswer>((resolve) => (answer = resolve)));
+    await wrapper.setProps({ renew: 1 });
+    await flushPromises();
+    expect(api.callsTo('GET', tasksPath)).toHaveLength(2);
+    expect(shownTitle()).toBe('Take a reading');
+
+    answer(listOf(task('rack-off-primary', 'Rack off the lees', '2026-03-31')));
+    await vi.waitFor(() => expect(shownTitle()).toBe('Rack off the lees'));
+  });
+
+  it('keeps the task shown when asking again finds no signal', async () => {
+    const api = fakeApi();
+    signIn(api);
+    const tasksPath = `/api/cellars/${CELLAR_ID}/tasks`;
+    api.on('GET', tasksPath, listOf(task('weekly-reading', 'Take a reading', '2026-03-13')));
+    const { wrapper } = await mountInApp(NextTaskCard, `/c/${CELLAR_ID}/vessels`, { props: { batchId: BATCH_ID, cellarId: CELLAR_ID, renew: 0 } });
+    await vi.waitFor(() => expect(shownTitle()).toBe('Take a reading'));
+
+    api.on('GET', tasksPath, () => Promise.reject(new TypeError('Failed to fetch')));
+    await wrapper.setProps({ renew: 1 });
+    await vi.waitFor(() => expect(api.callsTo('GET', tasksPath)).toHaveLength(2));
+    await flushPromises();
+    expect(shownTitle()).toBe('Take a reading');
+  });
+});
