@@ -3,29 +3,12 @@ import { flushPromises } from '@vue/test-utils';
 import { taskListSchema, type Task } from '@shared/schemas/tasks';
 import NextTaskCard from '@/components/tasks/NextTaskCard.vue';
 import { fakeApi, type FakeAnswer } from './support/fake-api';
-import { BATCH_ID, CELLAR_ID, signIn } from './support/fixtures';
+import { BATCH_ID, CELLAR_ID, plannedTask, signIn } from './support/fixtures';
 import { mountInApp } from './support/mount-in-app';
 
 const TODAY = '2026-03-14';
 
-/** A task of the batch as the server lists it, checked against the shared schema. */
-function task(ruleId: string, title: string, dueOn: string): Task {
-  return {
-    key: `${BATCH_ID}/${ruleId}/primary.0`,
-    batch: { id: BATCH_ID, name: 'Sloe Hedge Melomel', kind: 'melomel', stage: 'primary' },
-    vesselNames: ['Fermenter 1'],
-    what: 'reading',
-    title,
-    dueOn,
-    showFrom: dueOn,
-    rule: { id: ruleId, note: 'Common practice: weekly in primary.' },
-    reason: 'every week while in primary',
-    status: 'open',
-    bucket: dueOn < TODAY ? 'overdue' : dueOn === TODAY ? 'today' : 'upcoming',
-    snoozedUntil: null,
-    closed: null,
-  };
-}
+const task = (ruleId: string, title: string, dueOn: string): Task => plannedTask(ruleId, title, dueOn, TODAY);
 const listOf = (...tasks: Task[]): FakeAnswer => ({ body: taskListSchema.parse({ today: TODAY, tasks, more: 0 }) });
 const shownTitle = () => document.querySelector('[data-test=next-task] .q-item__label')?.textContent?.trim() ?? null;
 

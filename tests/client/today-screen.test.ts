@@ -6,7 +6,7 @@ import FermentList from '@/components/today/FermentList.vue';
 import ReadyVessels from '@/components/today/ReadyVessels.vue';
 import VesselsPage from '@/pages/VesselsPage.vue';
 import { fakeApi } from './support/fake-api';
-import { CELLAR_ID, signIn } from './support/fixtures';
+import { CELLAR_ID, plannedTask, signIn } from './support/fixtures';
 import { mountInApp, pick } from './support/mount-in-app';
 
 const ferment = (id: string, name: string, state: Today['ferments'][number]['state']): Today['ferments'][number] => ({
@@ -55,6 +55,35 @@ describe('Today', () => {
     expect(href.pathname).toBe(`/c/${CELLAR_ID}/vessels`);
     expect(href.searchParams.get('free')).toBe('true');
     expect(href.searchParams.get('cap')).toBe('4.5');
+  });
+});
+
+describe('Today: needs a hand', () => {
+  const due = (n: number) =>
+    Array.from({ length: n }, (_, i) =>
+      plannedTask('weekly-reading', `Reading ${i + 1}`, `2026-11-${String(20 + i).padStart(2, '0')}`, '2026-12-04', `primary.${i}`),
+    );
+  const mountWith = (items: ReturnType<typeof due>) =>
+    mountInApp(AttentionList, `/c/${CELLAR_ID}/today`, {
+      props: { needsRacking: [], additionsDue: [], cellarId: CELLAR_ID, tasks: { today: '2026-12-04', items }, canAct: true },
+    });
+  const titles = () =>
+    [...document.querySelectorAll('[data-test=today-attention] [data-key] .q-item__label:first-child')].map((e) => e.textContent?.trim());
+
+  it('shows the five most pressing tasks and links to the Tasks screen for the rest', async () => {
+    signIn(fakeApi());
+    await mountWith(due(8));
+    expect(titles()).toEqual(['Reading 1', 'Reading 2', 'Reading 3', 'Reading 4', 'Reading 5']);
+    const more = pick<HTMLAnchorElement>('[data-test=today-more-tasks]');
+    expect(more.textContent).toContain('3 more due');
+    expect(more.getAttribute('href')).toBe(`/c/${CELLAR_ID}/tasks`);
+  });
+
+  it('shows every task, and no link, when there are five or fewer', async () => {
+    signIn(fakeApi());
+    await mountWith(due(5));
+    expect(titles()).toHaveLength(5);
+    expect(document.querySelector('[data-test=today-more-tasks]')).toBeNull();
   });
 });
 

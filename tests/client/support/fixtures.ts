@@ -4,6 +4,7 @@ import { batchPageSchema, type BatchSummary } from '@shared/schemas/batches';
 import { cellarSchema, type Cellar } from '@shared/schemas/cellars';
 import { readingResultSchema, type ReadingResult } from '@shared/schemas/journal';
 import type { Role } from '@shared/roles';
+import { taskSchema, type Task } from '@shared/schemas/tasks';
 import { vesselSchema, type Vessel } from '@shared/schemas/vessels';
 import type { FakeApi } from './fake-api';
 
@@ -116,5 +117,27 @@ export function vessel(overrides: Partial<Vessel> = {}): Vessel {
     notes: '',
     version: 1,
     ...overrides,
+  });
+}
+
+/**
+ * An open planned task of the test batch as the server lists it for `today`, checked against the shared schema.
+ * @param occurrence - makes the key unique when one rule gives several
+ */
+export function plannedTask(ruleId: string, title: string, dueOn: string, today: string, occurrence = 'primary.0'): Task {
+  return taskSchema.parse({
+    key: `${BATCH_ID}/${ruleId}/${occurrence}`,
+    batch: { id: BATCH_ID, name: 'Test melomel', kind: 'melomel', stage: 'primary' },
+    vesselNames: ['Fermenter 1'],
+    what: 'reading',
+    title,
+    dueOn,
+    showFrom: dueOn,
+    rule: { id: ruleId, note: 'Common practice: weekly in primary.' },
+    reason: 'every week while in primary',
+    status: 'open',
+    bucket: dueOn < today ? 'overdue' : dueOn === today ? 'today' : 'upcoming',
+    snoozedUntil: null,
+    closed: null,
   });
 }
