@@ -1,5 +1,7 @@
 import { fc, test as propTest } from '@fast-check/vitest';
 import { isDeepStrictEqual as isDeepEqual } from 'node:util';
+import dayjs from 'dayjs';
+import utc from 'dayjs/plugin/utc';
 import { describe, expect, it } from 'vitest';
 import type { BatchFacts, FactEvent } from '../../../shared/domain/plans/batch-facts';
 import { computeTasks } from '../../../shared/domain/plans/compute-tasks';
@@ -50,6 +52,26 @@ describe('local dates (calendar arithmetic)', () => {
     expect(addMonths('2026-01-15', -13)).toBe('2024-12-15');
     expect(daysBetween('2024-01-01', '2025-01-01')).toBe(366); // 2024 is a leap year
     expect(daysBetween('2026-03-01', '2026-02-01')).toBe(-28);
+  });
+});
+
+// Checked against dayjs (a calendar library from npm, in UTC so no clock change interferes), which
+// adds months the same way: the month's last day when the month has no such day.
+dayjs.extend(utc);
+describe('local dates agree with dayjs over four centuries', () => {
+  const dateArb = fc
+    .date({ min: new Date('1900-01-01T00:00:00Z'), max: new Date('2299-12-31T00:00:00Z'), noInvalidDate: true })
+    .map((d) => d.toISOString().slice(0, 10));
+  const ref = (date: string) => dayjs.utc(date);
+
+  propTest.prop([dateArb, fc.integer({ min: -4000, max: 4000 })])('adds days', (date, days) => {
+    expect(addDays(date, days)).toBe(ref(date).add(days, 'day').format('YYYY-MM-DD'));
+  });
+  propTest.prop([dateArb, fc.integer({ min: -240, max: 240 })])('adds months, ending on the month end', (date, months) => {
+    expect(addMonths(date, months)).toBe(ref(date).add(months, 'month').format('YYYY-MM-DD'));
+  });
+  propTest.prop([dateArb, dateArb])('counts the days between two dates', (from, to) => {
+    expect(daysBetween(from, to)).toBe(ref(to).diff(ref(from), 'day'));
   });
 });
 
