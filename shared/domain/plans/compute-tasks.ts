@@ -1,6 +1,6 @@
 import { TASK_WHAT_LABELS, type PlanRule, type TaskWhat } from '../../schemas/plans';
 import type { BatchFacts, FactEvent } from './batch-facts';
-import { addDays } from './local-dates';
+import { addDays, maxDate } from './local-dates';
 import { occurrencesOf, type Occurrence } from './occurrences';
 
 /**
@@ -84,7 +84,7 @@ export function computeTasks(rules: readonly PlanRule[], facts: BatchFacts, opti
     // what the journal completes) are the same whatever the lookahead: a reminder mail (none)
     // and the Tasks screen (two weeks) never disagree. Repeats past the horizon count for what is
     // moot, and are left out of the answer.
-    const windowHorizon = [horizon, addDays(options.today, rule.showDaysAhead)].sort()[1]!;
+    const windowHorizon = maxDate(horizon, addDays(options.today, rule.showDaysAhead));
     const occurrences = occurrencesOf(rule, facts, windowHorizon, historyFrom).sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : 0));
     occurrences.forEach((occurrence, i) => {
       const showFrom = addDays(occurrence.dueOn, -rule.showDaysAhead);

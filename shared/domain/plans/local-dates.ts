@@ -52,3 +52,4 @@ export function daysBetween(from: string, to: string): number {
 }
 
 export const minDate = (a: string, b: string): string => (a < b ? a : b);
+export const maxDate = (a: string, b: string): string => (a > b ? a : b);
