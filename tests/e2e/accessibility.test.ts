@@ -42,6 +42,10 @@ interface Recipe {
   settlesOn?: (w: World) => RegExp;
   /** Opens a dialog (or the like) once the screen has loaded. */
   open?: (page: Page) => Promise<void>;
+  /** Requests answered 503 while the screen loads, for the screen a maker sees without them. */
+  failing?: RegExp;
+  /** A selector the screen must show once settled, so the state is really the one audited. */
+  shows?: string;
 }
 
 const inCellar = (rest: string) => (w: World) => `/c/${w.cellarId}/${rest}`;
@@ -87,7 +91,22 @@ const DIALOG_RECIPES: Record<string, Recipe> = {
   'New rack': { path: inCellar('map'), signedIn: true, open: (page) => openDialog(page, 'new-rack') },
 };
 
-const SCREENS = [...Object.entries(ROUTE_RECIPES), ...Object.entries(DIALOG_RECIPES).map(([name, r]) => [`${name} (dialog)`, r] as const)];
+/** Screens in a state the routes alone do not reach. */
+const STATE_RECIPES: Record<string, Recipe> = {
+  // Today then lists what the records alone tell (additions to take out, batches to rack).
+  'today without its tasks': {
+    path: inCellar('today'),
+    signedIn: true,
+    failing: /\/api\/cellars\/[^/]+\/tasks(\?|$)/,
+    shows: '[data-test=today-attention] a[href*="/batches/"]',
+  },
+};
+
+const SCREENS = [
+  ...Object.entries(ROUTE_RECIPES),
+  ...Object.entries(DIALOG_RECIPES).map(([name, r]) => [`${name} (dialog)`, r] as const),
+  ...Object.entries(STATE_RECIPES),
+];
 const WIDTHS = [
   { width: 390, height: 844 },
   { width: 1280, height: 800 },
@@ -151,6 +170,8 @@ describeInBrowser('every screen is usable by everyone, in Chromium', (env) => {
   async function visit(recipe: Recipe): Promise<void> {
     const { baseUrl } = env();
     await session(recipe.signedIn);
+    await page.unrouteAll();
+    if (recipe.failing) await page.route(recipe.failing, (route) => route.fulfill({ status: 503, json: { error: 'Unavailable in this test' } }));
     await page.goto(`${baseUrl}${recipe.path(world)}`);
     await page.waitForLoadState('networkidle');
     const expected =
@@ -164,6 +185,7 @@ describeInBrowser('every screen is usable by everyone, in Chromium', (env) => {
     await page.waitForURL(expected);
     await page.waitForLoadState('networkidle');
     if (recipe.open) await recipe.open(page);
+    if (recipe.shows) await page.waitForSelector(recipe.shows, { timeout: 5_000 });
     await page.waitForTimeout(450);
   }
 
