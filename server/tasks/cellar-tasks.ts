@@ -106,10 +106,11 @@ export async function cellarTasks(
     )) as OneOffRow[],
   ];
   const stateOf = new Map(states.map((s) => [s.task_key, s]));
+  const doneByHand = new Set(states.filter((s) => s.status === 'done').map((s) => s.task_key));
   const tasks: Task[] = [];
   for (const batch of batches) {
     const { plan } = planFor(plans, batch);
-    const computed = plan ? computeTasks(plan.rules, facts.get(batch.id)!, { today, lookaheadDays }) : [];
+    const computed = plan ? computeTasks(plan.rules, facts.get(batch.id)!, { today, lookaheadDays, doneByHand }) : [];
     for (const c of computed) tasks.push(toTask(batch, c, stateOf.get(c.key), today, false));
   }
   const batchById = new Map(batches.map((b) => [b.id, b]));

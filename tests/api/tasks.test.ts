@@ -166,6 +166,29 @@ describe('done, snooze, dismiss and undo', () => {
     await act(crew.as.hand, 'reopen', { key }).expect(200);
   });
 
+  it('takes a missed task of the same work off the list when the next one, shown today, is marked done by hand', async () => {
+    // Started 13 days ago: readings due 6 days ago (missed) and tomorrow, shown a day ahead, so from today.
+    const { result } = await batchInVessels(ds, crew, [20], { startedOn: daysAgo(13) });
+    const batchId = result.batch.id;
+    const missed = `${batchId}/weekly-reading/primary.0`;
+    const next = `${batchId}/weekly-reading/primary.1`;
+    const openReadings = async (withinDays: number) =>
+      (await tasksOf(crew.as.guest, { batchId, buckets: 'overdue,today,upcoming', withinDays }))
+        .filter((t) => t.what === 'reading' && t.status === 'open')
+        .map((t) => t.key);
+    expect(await openReadings(0)).toEqual([missed]);
+
+    await act(crew.as.hand, 'done', { key: next }).expect(200);
+    // Today (two weeks ahead) and the reminder mail (today only) agree: nothing is overdue.
+    expect(await openReadings(14)).toEqual([`${batchId}/weekly-reading/primary.2`]);
+    expect(await openReadings(0)).toEqual([]);
+    expect(await taskOf(batchId, next)).toMatchObject({ status: 'done', closed: { by: 'Hal Hand', byJournal: false } });
+
+    // Undone, the missed one is back.
+    await act(crew.as.hand, 'reopen', { key: next }).expect(200);
+    expect(await openReadings(0)).toEqual([missed]);
+  });
+
   it('refuses snoozing into the past or to today, naming the field', async () => {
     for (const until of [daysAgo(1), daysAgo(0)]) {
       const res = await act(crew.as.hand, 'snooze', { key, until });

@@ -32,6 +32,8 @@ export interface ComputeOptions {
   today: string;
   /** Repeating rules are unrolled this many days past today. */
   lookaheadDays: number;
+  /** Keys of tasks people marked done: the work was done, as if the journal showed it. */
+  doneByHand?: ReadonlySet<string>;
 }
 
 /** Tasks that are done by themselves when this entry appears in the journal. */
@@ -70,9 +72,9 @@ function titleOf(rule: PlanRule, occurrence: Occurrence): string {
  * The batch's tasks under these rules, soonest first. A repeating task's window runs until the
  * next one's starts, and the first journal entry of the right kind in its window completes it;
  * an open task is dropped once a later task of the same group (the same kind of work, or the
- * same addition) has fallen due or been done, so a missed check never piles up behind the next
- * one nor stays overdue after the work was done, and once its rule has ended (its "until"
- * came, or the batch left its vessels).
+ * same addition) has fallen due or been done (by the journal, or by hand once it shows), so a
+ * missed check never piles up behind the next one nor stays overdue after the work was done,
+ * and once its rule has ended (its "until" came, or the batch left its vessels).
  */
 export function computeTasks(rules: readonly PlanRule[], facts: BatchFacts, options: ComputeOptions): ComputedTask[] {
   if (facts.stage === 'finished') return [];
@@ -109,19 +111,24 @@ export function computeTasks(rules: readonly PlanRule[], facts: BatchFacts, opti
       });
     });
   }
-  // Per group, the latest due date up to today and the latest task the journal shows done: an
-  // open task due before the first, or not after the second, is moot (a later one fell due, or
-  // the same work was done since; two rackings on one day give two re-racks due the same day).
+  // Per group, the latest due date up to today and the latest task done (by the journal or by
+  // hand): an open task due before the first, or not after the second, is moot (a later one fell
+  // due, or the same work was done since; two rackings on one day give two re-racks due the same day).
+  // Only a hand-done task that already shows counts: every caller unrolls that far, so a mail
+  // and a screen agree (one marked done weeks early moots nothing until it shows).
+  const doneByHand = options.doneByHand ?? new Set<string>();
+  const isDone = (t: (typeof all)[number]) => t.doneByJournal !== null || doneByHand.has(t.key);
+  const countsDone = (t: (typeof all)[number]) => t.doneByJournal !== null || (doneByHand.has(t.key) && t.showFrom <= options.today);
   const latestDue = new Map<string, string>();
   const latestDone = new Map<string, string>();
   for (const t of all) {
     if (t.dueOn <= options.today && t.dueOn > (latestDue.get(t.group) ?? '')) latestDue.set(t.group, t.dueOn);
-    if (t.doneByJournal && t.dueOn > (latestDone.get(t.group) ?? '')) latestDone.set(t.group, t.dueOn);
+    if (countsDone(t) && t.dueOn > (latestDone.get(t.group) ?? '')) latestDone.set(t.group, t.dueOn);
   }
   const moot = (t: (typeof all)[number]) => t.dueOn < (latestDue.get(t.group) ?? '') || t.dueOn <= (latestDone.get(t.group) ?? '');
   return all
     .filter((t) => !t.pastHorizon)
-    .filter((t) => t.doneByJournal !== null || (!moot(t) && (t.endsOn === null || t.endsOn > options.today)))
+    .filter((t) => isDone(t) || (!moot(t) && (t.endsOn === null || t.endsOn > options.today)))
     .map(({ group: _group, endsOn: _endsOn, pastHorizon: _pastHorizon, ...task }) => task)
     .sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
 }

@@ -196,6 +196,53 @@ describe('computeTasks', () => {
     ]);
   });
 
+  describe('a task marked done by hand', () => {
+    // Mead plan (common practice): weekly readings in primary, each shown a day ahead. Started
+    // 1 March: due 8 March (missed, nothing logged), 15 March (shown from 14 March), 22 March.
+    const nothingLogged = facts('primary', []);
+    const readingKeys = (today: string, doneByHand: string[]) =>
+      computeTasks(mead, nothingLogged, { today, lookaheadDays: 14, doneByHand: new Set(doneByHand.map((k) => `${B}/${k}`)) })
+        .filter((t) => t.ruleId === 'weekly-reading')
+        .map((t) => [t.key.slice(B.length + 1), t.dueOn]);
+
+    it('makes an older open task of its kind moot, as a logged reading would', () => {
+      expect(readingKeys('2026-03-14', [])).toEqual([
+        ['weekly-reading/primary.0', '2026-03-08'],
+        ['weekly-reading/primary.1', '2026-03-15'],
+        ['weekly-reading/primary.2', '2026-03-22'],
+      ]);
+      expect(readingKeys('2026-03-14', ['weekly-reading/primary.1'])).toEqual([
+        ['weekly-reading/primary.1', '2026-03-15'],
+        ['weekly-reading/primary.2', '2026-03-22'],
+      ]);
+    });
+
+    it('moots nothing while it does not show yet, so a reminder that looks no further than today agrees', () => {
+      // 22 March shows from 21 March: marked done on 14 March, the missed 8 March stays open.
+      expect(readingKeys('2026-03-14', ['weekly-reading/primary.2'])).toEqual([
+        ['weekly-reading/primary.0', '2026-03-08'],
+        ['weekly-reading/primary.1', '2026-03-15'],
+        ['weekly-reading/primary.2', '2026-03-22'],
+      ]);
+    });
+
+    it('stays in the answer after a later one fell due, as one done by the journal does', () => {
+      // On 20 March the 15 March task has fallen due; 8 March, marked done, is still history to show.
+      // Fourteen days ahead of 20 March reach 29 March.
+      expect(readingKeys('2026-03-20', ['weekly-reading/primary.0'])).toEqual([
+        ['weekly-reading/primary.0', '2026-03-08'],
+        ['weekly-reading/primary.1', '2026-03-15'],
+        ['weekly-reading/primary.2', '2026-03-22'],
+        ['weekly-reading/primary.3', '2026-03-29'],
+      ]);
+      expect(readingKeys('2026-03-20', [])).toEqual([
+        ['weekly-reading/primary.1', '2026-03-15'],
+        ['weekly-reading/primary.2', '2026-03-22'],
+        ['weekly-reading/primary.3', '2026-03-29'],
+      ]);
+    });
+  });
+
   it('completes the racking task with a racking, which anchors a headspace check 3 days on and a re-rack 90 days on', () => {
     const events: FactEvent[] = [{ kind: 'racking', id: 'rk1', on: '2026-04-02' }];
     const tasks = computeTasks(mead, facts('secondary', events), { today: '2026-04-03', lookaheadDays: 30 });
@@ -345,6 +392,49 @@ describe('computeTasks over any journal (default plans)', () => {
       const ahead = seen(today).filter((t) => t.dueOn > later && t.dueOn <= dayOf2026(todayDay + 60));
       const then = new Map(seen(later).map((t) => [t.key, t]));
       expect(ahead.filter((t) => !isDeepEqual(then.get(t.key), t)).map((t) => [t.key, t.dueOn, then.get(t.key)?.dueOn ?? 'gone'])).toEqual([]);
+    },
+  );
+
+  propTest.prop(
+    [
+      fc.constantFrom(...plans.keys()),
+      journalArb,
+      fc.oneof(fc.constant(0), fc.integer({ min: 0, max: 20 })),
+      fc.integer({ min: 1, max: 120 }),
+      fc.array(fc.nat(), { maxLength: 4 }),
+    ],
+    { numRuns: 400 },
+  )(
+    'gives the same tasks up to the shorter horizon with some of them marked done by hand',
+    (planName, { todayDay, today, events }, shorter, more, picks) => {
+      // A mail (today only) and the Tasks screen (weeks ahead) read the same stored states.
+      const plan = plans.get(planName)!;
+      const batch = facts('primary', events, dayOf2026(0));
+      const candidates = computeTasks(plan, batch, { today, lookaheadDays: shorter + more }).map((t) => t.key);
+      const doneByHand = new Set(picks.flatMap((n) => (candidates.length ? [candidates[n % candidates.length]!] : [])));
+      const repeats = new Set(plan.filter((r) => r.when.type === 'every').map((r) => r.id));
+      const near = computeTasks(plan, batch, { today, lookaheadDays: shorter, doneByHand });
+      const far = computeTasks(plan, batch, { today, lookaheadDays: shorter + more, doneByHand });
+      const nearHorizon = dayOf2026(todayDay + shorter);
+      expect(near).toEqual(far.filter((t) => !(repeats.has(t.ruleId) && t.dueOn > nearHorizon)));
+    },
+  );
+
+  propTest.prop([fc.constantFrom(...plans.keys()), journalArb, fc.nat()], { numRuns: 400 })(
+    'leaves no older task of its kind open once a task that shows is marked done by hand',
+    (planName, { today, events }, pick) => {
+      const plan = plans.get(planName)!;
+      const batch = facts('primary', events, dayOf2026(0));
+      // Oak work is grouped per addition, which a task does not name: left to the examples.
+      const showing = computeTasks(plan, batch, { today, lookaheadDays: 14 }).filter(
+        (t) => t.doneByJournal === null && t.showFrom <= today && t.what !== 'oak-check' && t.what !== 'oak-out',
+      );
+      if (showing.length === 0) return;
+      const marked = showing[pick % showing.length]!;
+      const tasks = computeTasks(plan, batch, { today, lookaheadDays: 14, doneByHand: new Set([marked.key]) });
+      const olderOpen = tasks.filter((t) => t.what === marked.what && t.key !== marked.key && t.doneByJournal === null && t.dueOn <= marked.dueOn);
+      expect(olderOpen.map((t) => [t.key, t.dueOn])).toEqual([]);
+      expect(tasks.map((t) => t.key)).toContain(marked.key);
     },
   );
 
