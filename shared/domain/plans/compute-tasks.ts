@@ -24,6 +24,14 @@ export interface ComputedTask {
   doneByJournal: { entryId: string; on: string } | null;
 }
 
+/** A task before the moot pass, with what that pass needs. */
+interface Candidate extends ComputedTask {
+  group: string;
+  endsOn: string | null;
+  /** A repeat unrolled only to settle what is moot, beyond what the caller asked for. */
+  pastHorizon: boolean;
+}
+
 /** Repeats due longer ago than this are not computed: no screen shows them, and a later repeat replaces a missed one. */
 const HISTORY_DAYS = 31;
 
@@ -80,7 +88,7 @@ export function computeTasks(rules: readonly PlanRule[], facts: BatchFacts, opti
   if (facts.stage === 'finished') return [];
   const horizon = addDays(options.today, options.lookaheadDays);
   const historyFrom = addDays(options.today, -HISTORY_DAYS);
-  const all: (ComputedTask & { group: string; endsOn: string | null; pastHorizon: boolean })[] = [];
+  const all: Candidate[] = [];
   for (const rule of rules) {
     // Repeats are unrolled at least until the next one's window has opened, so the windows (and
     // what the journal completes) are the same whatever the lookahead: a reminder mail (none)
@@ -117,15 +125,16 @@ export function computeTasks(rules: readonly PlanRule[], facts: BatchFacts, opti
   // Only a hand-done task that already shows counts: every caller unrolls that far, so a mail
   // and a screen agree (one marked done weeks early moots nothing until it shows).
   const doneByHand = options.doneByHand ?? new Set<string>();
-  const isDone = (t: (typeof all)[number]) => t.doneByJournal !== null || doneByHand.has(t.key);
-  const countsDone = (t: (typeof all)[number]) => t.doneByJournal !== null || (doneByHand.has(t.key) && t.showFrom <= options.today);
+  const isDone = (t: Candidate) => t.doneByJournal !== null || doneByHand.has(t.key);
+  const countsDone = (t: Candidate) => t.doneByJournal !== null || (doneByHand.has(t.key) && t.showFrom <= options.today);
   const latestDue = new Map<string, string>();
   const latestDone = new Map<string, string>();
+  const keepLatest = (latest: Map<string, string>, t: Candidate) => latest.set(t.group, maxDate(latest.get(t.group) ?? t.dueOn, t.dueOn));
   for (const t of all) {
-    if (t.dueOn <= options.today && t.dueOn > (latestDue.get(t.group) ?? '')) latestDue.set(t.group, t.dueOn);
-    if (countsDone(t) && t.dueOn > (latestDone.get(t.group) ?? '')) latestDone.set(t.group, t.dueOn);
+    if (t.dueOn <= options.today) keepLatest(latestDue, t);
+    if (countsDone(t)) keepLatest(latestDone, t);
   }
-  const moot = (t: (typeof all)[number]) => t.dueOn < (latestDue.get(t.group) ?? '') || t.dueOn <= (latestDone.get(t.group) ?? '');
+  const moot = (t: Candidate) => t.dueOn < (latestDue.get(t.group) ?? '') || t.dueOn <= (latestDone.get(t.group) ?? '');
   return all
     .filter((t) => !t.pastHorizon)
     .filter((t) => isDone(t) || (!moot(t) && (t.endsOn === null || t.endsOn > options.today)))

@@ -7,13 +7,24 @@ import type { BatchFacts, FactEvent } from '../../../shared/domain/plans/batch-f
 import { computeTasks } from '../../../shared/domain/plans/compute-tasks';
 import { DEFAULT_PLANS } from '../../../shared/domain/plans/default-plans';
 import { addDays, addMonths, addPeriod, daysBetween } from '../../../shared/domain/plans/local-dates';
-import { planRuleSchema, planRulesSchema, type PlanRule, type PlanRuleInput } from '../../../shared/schemas/plans';
+import {
+  planRuleSchema,
+  planRulesSchema,
+  ANCHORS,
+  TASK_WHATS,
+  type PlanRule,
+  type PlanRuleInput,
+  type TaskWhat,
+} from '../../../shared/schemas/plans';
 
 const B = '00000000-0000-4000-8000-000000000001';
 const mead = planRulesSchema.parse(DEFAULT_PLANS.find((p) => p.name === 'Mead')!.rules);
 const rules = (...input: PlanRuleInput[]): PlanRule[] => planRulesSchema.parse(input);
 const facts = (stage: BatchFacts['stage'], events: FactEvent[], startedOn = '2026-03-01'): BatchFacts => ({ batchId: B, startedOn, stage, events });
 const keysDue = (tasks: ReturnType<typeof computeTasks>) => tasks.map((t) => [t.key.slice(B.length + 1), t.dueOn]);
+/** A rule's "when": so long after an anchor. */
+const after = (anchor: (typeof ANCHORS)[number], count: number, unit: 'days' | 'months' = 'days') =>
+  ({ type: 'after', anchor, after: { count, unit } }) as const;
 
 describe('local dates (calendar arithmetic)', () => {
   it('ends a month that has no such day on its last day (31 January + 1 month)', () => {
@@ -137,7 +148,7 @@ describe('computeTasks', () => {
 
   it('words a period of one unit in the singular in a task’s reason, and a repeat of one unit without the number', () => {
     const plan = rules(
-      { id: 'after-a-month', what: 'milestone', when: { type: 'after', anchor: 'start', after: { count: 1, unit: 'months' } }, showDaysAhead: 0 },
+      { id: 'after-a-month', what: 'milestone', when: after('start', 1, 'months'), showDaysAhead: 0 },
       { id: 'weekly', what: 'reading', when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'primary' }, showDaysAhead: 0 },
     );
     const tasks = computeTasks(plan, facts('primary', []), { today: '2026-03-10', lookaheadDays: 60 });
@@ -193,6 +204,23 @@ describe('computeTasks', () => {
     expect(keysDue(tasks).filter(([k]) => k!.startsWith('weekly-reading'))).toEqual([
       ['weekly-reading/primary.1', '2026-03-15'],
       ['weekly-reading/primary.2', '2026-03-22'],
+    ]);
+  });
+
+  it('lets the latest task of a kind moot older ones whichever of two rules gave it', () => {
+    // Common practice: a headspace check 3 days after each racking, and monthly while racked.
+    // Racked 1 April and 21 May: checks due 4 April and 24 May, and monthly 1 May.
+    const checks = rules(
+      { id: 'after-racking', what: 'headspace-check', when: after('each-racking', 3), showDaysAhead: 0 },
+      { id: 'monthly', what: 'headspace-check', when: { type: 'every', every: { count: 1, unit: 'months' }, while: 'racked' }, showDaysAhead: 0 },
+    );
+    const racked: FactEvent[] = [
+      { kind: 'racking', id: 'rk1', on: '2026-04-01' },
+      { kind: 'racking', id: 'rk2', on: '2026-05-21' },
+    ];
+    // On 25 May only the check of 24 May is left open; the missed ones of 4 April and 1 May are moot.
+    expect(keysDue(computeTasks(checks, facts('secondary', racked), { today: '2026-05-25', lookaheadDays: 0 }))).toEqual([
+      ['after-racking/rk2', '2026-05-24'],
     ]);
   });
 
@@ -292,7 +320,7 @@ describe('computeTasks', () => {
     const monthly = rules({
       id: 'm',
       what: 'milestone',
-      when: { type: 'after', anchor: 'start', after: { count: 1, unit: 'months' } },
+      when: after('start', 1, 'months'),
       showDaysAhead: 0,
     });
     expect(computeTasks(monthly, facts('primary', [], '2026-01-31'), { today: '2026-02-01', lookaheadDays: 0 })[0]!.dueOn).toBe('2026-02-28');
@@ -312,6 +340,149 @@ describe('computeTasks', () => {
     ]);
     expect(tasks.some((t) => t.what === 'headspace-check' && t.dueOn > '2026-08-31')).toBe(false);
     expect(computeTasks(mead, facts('finished', events), { today: '2026-09-01', lookaheadDays: 0 })).toEqual([]);
+  });
+});
+
+describe('what the journal shows done', () => {
+  // One rule due 11 March (10 days after a start on 1 March), shown from 9 March; one entry on 10 March.
+  const oneRule = (what: TaskWhat) =>
+    rules({
+      id: 'w',
+      what,
+      title: what === 'custom' ? 'Order more corks' : '',
+      when: after('start', 10),
+      showDaysAhead: 2,
+    });
+  const on = '2026-03-10';
+  const ENTRIES: Record<string, FactEvent> = {
+    reading: { kind: 'reading', id: 'e', on, sg: 1.02 },
+    racking: { kind: 'racking', id: 'e', on },
+    'topping up': { kind: 'topped-up', id: 'e', on },
+    'a take-out': { kind: 'removed', id: 'e', on, additionId: 'oak-a' },
+    'a stabiliser': { kind: 'addition', id: 'e', on, category: 'stabiliser', name: 'Potassium sorbate', removeOn: null },
+    'oak going in': { kind: 'addition', id: 'e', on, category: 'oak', name: 'Oak cubes', removeOn: null },
+    'fruit going in': { kind: 'addition', id: 'e', on, category: 'fruit', name: 'Blackcurrants', removeOn: null },
+    bottling: { kind: 'bottled', id: 'e', on },
+    tasting: { kind: 'tasted', id: 'e', on },
+  };
+  /** The entries that do each kind of work; checks and custom tasks are closed by hand only. */
+  const DONE_BY: Record<TaskWhat, string[]> = {
+    reading: ['reading'],
+    racking: ['racking'],
+    'headspace-check': ['topping up'],
+    'oak-check': [],
+    'oak-out': ['a take-out'],
+    stabilise: ['a stabiliser'],
+    bottle: ['bottling'],
+    tasting: ['tasting'],
+    milestone: ['tasting'],
+    custom: [],
+  };
+
+  for (const what of TASK_WHATS) {
+    it(`closes a ${what} task with ${DONE_BY[what].join(' or ') || 'no entry'}, and with nothing else`, () => {
+      const closedBy = Object.entries(ENTRIES)
+        .filter(([, entry]) => {
+          const task = computeTasks(oneRule(what), facts('primary', [entry]), { today: on, lookaheadDays: 7 }).find((t) => t.ruleId === 'w');
+          return task?.doneByJournal?.entryId === 'e';
+        })
+        .map(([name]) => name);
+      expect(closedBy).toEqual(DONE_BY[what]);
+    });
+  }
+
+  // Two fruit additions, each to be tasted 14 days after it went in, shown a day ahead.
+  const tastingAfterEach = rules({
+    id: 'taste',
+    what: 'tasting',
+    when: after('addition-in', 14),
+    showDaysAhead: 1,
+  });
+  const fruit = (id: string, day: string): FactEvent => ({ kind: 'addition', id, on: day, category: 'fruit', name: `Fruit ${id}`, removeOn: null });
+  const tastingsDone = (events: FactEvent[], today: string) =>
+    computeTasks(tastingAfterEach, facts('secondary', events), { today, lookaheadDays: 0 }).map((t) => [
+      t.key.slice(B.length + 1),
+      t.dueOn,
+      t.doneByJournal?.entryId ?? 'open',
+    ]);
+
+  it('counts work after an addition only from when its task shows, not from when the addition went in', () => {
+    const added = fruit('a', '2026-03-01');
+    const early: FactEvent = { kind: 'tasted', id: 't1', on: '2026-03-05' };
+    const shown: FactEvent = { kind: 'tasted', id: 't2', on: '2026-03-14' };
+    expect(tastingsDone([added, early], '2026-03-14')).toEqual([['taste/a', '2026-03-15', 'open']]);
+    expect(tastingsDone([added, early, shown], '2026-03-14')).toEqual([['taste/a', '2026-03-15', 't2']]);
+  });
+
+  it('lets one tasting close the tasks of two additions, each in its own group', () => {
+    const events = [fruit('a', '2026-03-01'), fruit('b', '2026-03-03'), { kind: 'tasted', id: 't', on: '2026-03-18' } as FactEvent];
+    expect(tastingsDone(events, '2026-03-18')).toEqual([
+      ['taste/a', '2026-03-15', 't'],
+      ['taste/b', '2026-03-17', 't'],
+    ]);
+  });
+
+  it('closes a take-out with the removal of that addition only, even one made before the task shows', () => {
+    // Common practice: oak comes out on the date the maker set; here 20 March, shown 2 days ahead.
+    const takeOut = rules({
+      id: 'out',
+      what: 'oak-out',
+      when: after('take-out-date', 0),
+      showDaysAhead: 2,
+    });
+    const oak = (id: string): FactEvent => ({ kind: 'addition', id, on: '2026-03-01', category: 'oak', name: `Oak ${id}`, removeOn: '2026-03-20' });
+    const removed = (additionId: string): FactEvent => ({ kind: 'removed', id: `out-${additionId}`, on: '2026-03-05', additionId });
+    const done = computeTasks(takeOut, facts('secondary', [oak('a'), oak('b'), removed('b')]), { today: '2026-03-06', lookaheadDays: 30 });
+    expect(done.map((t) => [t.key.slice(B.length + 1), t.doneByJournal?.entryId ?? 'open'])).toEqual([
+      ['out/a', 'open'],
+      ['out/b', 'out-b'],
+    ]);
+  });
+});
+
+describe('task titles', () => {
+  const titleOf = (input: PlanRuleInput, events: FactEvent[] = []) =>
+    computeTasks(rules(input), facts('secondary', events), { today: '2026-03-01', lookaheadDays: 60 }).map((t) => t.title)[0];
+  const afterStart = after('start', 10);
+  const oakSpiral: FactEvent = { kind: 'addition', id: 'oak1', on: '2026-03-01', category: 'oak', name: 'Oak spiral', removeOn: '2026-04-01' };
+
+  it('uses the title a Keeper wrote over the usual words', () => {
+    expect(titleOf({ id: 'x', what: 'reading', title: 'Read the big carboy', when: afterStart, showDaysAhead: 0 })).toBe('Read the big carboy');
+  });
+
+  it('words each kind of work by the usual label when the rule has no title', () => {
+    expect(titleOf({ id: 'x', what: 'reading', when: afterStart, showDaysAhead: 0 })).toBe('Take a reading');
+    expect(titleOf({ id: 'x', what: 'oak-check', when: afterStart, showDaysAhead: 0 })).toBe('Check the oak');
+    // Counting from an addition does not put its name into other work's words.
+    expect(titleOf({ id: 'x', what: 'tasting', when: after('addition-in', 7), showDaysAhead: 0 }, [oakSpiral])).toBe('Taste');
+  });
+
+  it('names the addition a take-out or a check is about, and says "the oak" when none is named', () => {
+    expect(titleOf({ id: 'x', what: 'oak-out', when: afterStart, showDaysAhead: 0 })).toBe('Take the oak out');
+    expect(titleOf({ id: 'x', what: 'oak-out', when: after('take-out-date', 0), showDaysAhead: 0 }, [oakSpiral])).toBe('Take out Oak spiral');
+    expect(
+      titleOf({ id: 'x', what: 'oak-check', when: { type: 'every', every: { count: 3, unit: 'days' }, while: 'oak-in' }, showDaysAhead: 0 }, [
+        oakSpiral,
+      ]),
+    ).toBe('Check Oak spiral');
+  });
+});
+
+describe('the order of the answer', () => {
+  it('puts the soonest first and, on one day, orders by key whatever the order of the rules', () => {
+    const milestone = (id: string, days: number): PlanRuleInput => ({
+      id,
+      what: 'milestone',
+      when: after('start', days),
+      showDaysAhead: 0,
+    });
+    const plan = rules(milestone('a-late', 20), milestone('m-tie', 10), milestone('b-tie', 10), milestone('z-early', 5));
+    expect(keysDue(computeTasks(plan, facts('primary', []), { today: '2026-03-01', lookaheadDays: 0 }))).toEqual([
+      ['z-early/start', '2026-03-06'],
+      ['b-tie/start', '2026-03-11'],
+      ['m-tie/start', '2026-03-11'],
+      ['a-late/start', '2026-03-21'],
+    ]);
   });
 });
 
