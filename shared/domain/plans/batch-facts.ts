@@ -1,6 +1,6 @@
 import type { Stage } from '../../schemas/batches';
 import type { Condition } from '../../schemas/plans';
-import { RACKINGS_FOR_BULK_AGEING } from '../stage';
+import { deriveStage, RACKINGS_FOR_BULK_AGEING, type StageEvent } from '../stage';
 
 /**
  * What the rule engine knows of a batch: its start, its stage now and the journal events that
@@ -43,13 +43,28 @@ export interface Span {
 
 const STAGE_RANK: Record<Stage, number> = { primary: 0, secondary: 1, 'bulk-ageing': 2, bottled: 3, finished: 4 };
 
+const asStageEvent = (e: FactEvent): StageEvent =>
+  e.kind === 'racking' ? { kind: 'racked' } : e.kind === 'addition' ? { kind: 'addition', category: e.category } : { kind: 'note' };
+
+/**
+ * Rackings a split or blend carried from its parents: the fewest that bring its own entries to
+ * the stage it is in now. A batch started from a must carries none, and neither is assumed of
+ * one bottled or finished (its stage no longer says how far along it was).
+ */
+function inheritedRackings(facts: BatchFacts): number {
+  if (STAGE_RANK[facts.stage] >= STAGE_RANK.bottled) return 0;
+  const events = facts.events.map(asStageEvent);
+  for (let rackings = 0; rackings < RACKINGS_FOR_BULK_AGEING; rackings += 1) {
+    const reached = deriveStage({ events, inherited: { rackings, stabilised: false }, volumeInVesselsL: 1, bottlesLeft: 0 });
+    if (STAGE_RANK[reached] >= STAGE_RANK[facts.stage]) return rackings;
+  }
+  return RACKINGS_FOR_BULK_AGEING;
+}
+
 /** When the batch reached each stage, from its own events (stage rules of shared/domain/stage). */
 export function stageStarts(facts: BatchFacts): Partial<Record<Stage, string>> {
   const starts: Partial<Record<Stage, string>> = { primary: facts.startedOn };
-  const own = facts.events.filter((e) => e.kind === 'racking').length;
-  // A split or blend carries its parents' rackings: it starts further along than its own events say.
-  const rackingsAtNow = facts.stage === 'primary' ? 0 : facts.stage === 'secondary' ? 1 : RACKINGS_FOR_BULK_AGEING;
-  let rackings = Math.max(0, rackingsAtNow - own);
+  let rackings = inheritedRackings(facts);
   if (rackings >= 1) starts.secondary = facts.startedOn;
   if (rackings >= RACKINGS_FOR_BULK_AGEING) starts['bulk-ageing'] = facts.startedOn;
   let stabilised = false;

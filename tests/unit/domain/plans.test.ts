@@ -284,6 +284,16 @@ describe('computeTasks', () => {
     expect(tasks.filter((t) => t.ruleId === 'weekly-reading').every((t) => t.dueOn < '2026-04-02')).toBe(true);
   });
 
+  it('counts monthly headspace checks from the racking of a batch stabilised into bulk ageing after one racking', () => {
+    // Common practice (shared/domain/stage): a stabiliser after the first racking moves a batch to bulk ageing.
+    const events: FactEvent[] = [
+      { kind: 'racking', id: 'rk1', on: '2026-04-01' },
+      { kind: 'addition', id: 'st1', on: '2026-05-01', category: 'stabiliser', name: 'Sulfite tablets', removeOn: null },
+    ];
+    const tasks = computeTasks(mead, facts('bulk-ageing', events), { today: '2026-05-10', lookaheadDays: 0 });
+    expect(keysDue(tasks.filter((t) => t.ruleId === 'headspace-monthly'))).toEqual([['headspace-monthly/racked.0', '2026-05-01']]);
+  });
+
   it('reminds to take an addition out on its take-out date, and a removal completes it', () => {
     const oak: FactEvent = { kind: 'addition', id: 'oak1', on: '2026-05-01', category: 'oak', name: 'Oak cubes', removeOn: '2026-05-15' };
     const racked: FactEvent = { kind: 'racking', id: 'rk1', on: '2026-04-02' };
