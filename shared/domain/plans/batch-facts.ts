@@ -90,11 +90,11 @@ const earliest = (a: string | null | undefined, b: string | null | undefined): s
 export function conditionSpans(facts: BatchFacts, condition: Condition): Span[] {
   const starts = stageStarts(facts);
   const end = vesselsEnd(facts, starts);
+  /** A span that ends on or before the day it begins holds no day at all. */
+  const span = (ref: string, from: string, to: string | null): Span[] => (to !== null && to <= from ? [] : [{ ref, from, to }]);
   const stageSpan = (stage: 'primary' | 'secondary' | 'bulk-ageing', next: string | null | undefined): Span[] => {
     const from = starts[stage];
-    if (!from) return [];
-    const to = earliest(next, end);
-    return to !== null && to <= from ? [] : [{ ref: stage, from, to }];
+    return from ? span(stage, from, earliest(next, end)) : [];
   };
   switch (condition) {
     case 'primary':
@@ -104,15 +104,14 @@ export function conditionSpans(facts: BatchFacts, condition: Condition): Span[] 
     case 'bulk-ageing':
       return stageSpan('bulk-ageing', null);
     case 'racked':
-      return starts.secondary && (end === null || starts.secondary < end) ? [{ ref: 'racked', from: starts.secondary, to: end }] : [];
+      return starts.secondary ? span('racked', starts.secondary, end) : [];
     case 'in-vessels':
-      return [{ ref: 'in-vessels', from: facts.startedOn, to: end }];
+      return span('in-vessels', facts.startedOn, end);
     case 'oak-in':
       return facts.events.flatMap((e) => {
         if (e.kind !== 'addition' || e.category !== 'oak') return [];
         const removed = facts.events.find((r) => r.kind === 'removed' && r.additionId === e.id)?.on;
-        const to = earliest(removed, end);
-        return to !== null && to <= e.on ? [] : [{ ref: e.id, from: e.on, to, addition: e }];
+        return span(e.id, e.on, earliest(removed, end)).map((s) => ({ ...s, addition: e }));
       });
   }
 }

@@ -218,6 +218,10 @@ describe('conditionSpans: racked and in vessels', () => {
     ]);
   });
 
+  it('gives a batch finished the day it began, with nothing logged, no in-vessels span', () => {
+    expect(conditionSpans(facts('finished', []), 'in-vessels')).toEqual([]);
+  });
+
   it('ends in-vessels on the bottling day, or on the last entry of a batch blended away', () => {
     const journal = [racking('r1', '2026-04-01'), racking('r2', '2026-07-01'), bottled('b1', '2026-10-01')];
     expect(conditionSpans(facts('bottled', journal), 'in-vessels')).toEqual([{ ref: 'in-vessels', from: '2026-03-01', to: '2026-10-01' }]);
