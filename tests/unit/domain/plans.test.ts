@@ -287,11 +287,12 @@ describe('computeTasks', () => {
   it('counts monthly headspace checks from the racking of a batch stabilised into bulk ageing after one racking', () => {
     // Common practice (shared/domain/stage): a stabiliser after the first racking moves a batch to bulk ageing.
     const events: FactEvent[] = [
-      { kind: 'racking', id: 'rk1', on: '2026-04-01' },
+      { kind: 'racking', id: 'rk1', on: '2026-04-10' },
       { kind: 'addition', id: 'st1', on: '2026-05-01', category: 'stabiliser', name: 'Sulfite tablets', removeOn: null },
     ];
-    const tasks = computeTasks(mead, facts('bulk-ageing', events), { today: '2026-05-10', lookaheadDays: 0 });
-    expect(keysDue(tasks.filter((t) => t.ruleId === 'headspace-monthly'))).toEqual([['headspace-monthly/racked.0', '2026-05-01']]);
+    // Started 1 March, racked 10 April: the first monthly check falls on 10 May, not on 1 May.
+    const tasks = computeTasks(mead, facts('bulk-ageing', events), { today: '2026-05-12', lookaheadDays: 0 });
+    expect(keysDue(tasks.filter((t) => t.ruleId === 'headspace-monthly'))).toEqual([['headspace-monthly/racked.0', '2026-05-10']]);
   });
 
   it('reminds to take an addition out on its take-out date, and a removal completes it', () => {
