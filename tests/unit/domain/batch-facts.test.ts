@@ -278,57 +278,19 @@ describe('conditionSpans: oak in', () => {
     expect(conditionSpans(facts('bulk-ageing', journal), 'oak-in')).toEqual([]);
   });
 
-  it('ends oak still in at bottling on the bottling day', () => {
-    const journal = [
-      racking('r1', '2026-04-01'),
-      racking('r2', '2026-07-01'),
-      addition('k1', '2026-08-01', 'oak', 'Oak spiral'),
-      bottled('b1', '2026-10-01'),
-    ];
-    expect(conditionSpans(facts('bottled', journal), 'oak-in')).toEqual([
-      {
-        ref: 'k1',
-        from: '2026-08-01',
-        to: '2026-10-01',
-        addition: { kind: 'addition', id: 'k1', on: '2026-08-01', category: 'oak', name: 'Oak spiral', removeOn: null },
-      },
-    ]);
-  });
-
-  it('ends oak on the bottling day when its removal was logged after the bottling', () => {
-    const journal = [
-      racking('r1', '2026-04-01'),
-      racking('r2', '2026-07-01'),
-      addition('k1', '2026-08-01', 'oak', 'Oak spiral'),
-      bottled('b1', '2026-10-01'),
-      removed('x1', '2026-10-05', 'k1'),
-    ];
-    expect(conditionSpans(facts('bottled', journal), 'oak-in')).toEqual([
-      {
-        ref: 'k1',
-        from: '2026-08-01',
-        to: '2026-10-01',
-        addition: { kind: 'addition', id: 'k1', on: '2026-08-01', category: 'oak', name: 'Oak spiral', removeOn: null },
-      },
-    ]);
-  });
-
-  it('ends oak on its removal when that came before the bottling', () => {
-    const journal = [
-      racking('r1', '2026-04-01'),
-      racking('r2', '2026-07-01'),
-      addition('k1', '2026-08-01', 'oak', 'Oak spiral'),
-      removed('x1', '2026-09-01', 'k1'),
-      bottled('b1', '2026-10-01'),
-    ];
-    expect(conditionSpans(facts('bottled', journal), 'oak-in')).toEqual([
-      {
-        ref: 'k1',
-        from: '2026-08-01',
-        to: '2026-09-01',
-        addition: { kind: 'addition', id: 'k1', on: '2026-08-01', category: 'oak', name: 'Oak spiral', removeOn: null },
-      },
-    ]);
+  it('ends oak on the bottling day, or on its removal when that came first', () => {
+    const spiral = addition('k1', '2026-08-01', 'oak', 'Oak spiral');
+    const spiralIn = (to: string) => [{ ref: 'k1', from: '2026-08-01', to, addition: spiral }];
+    const rackedThenOak = [racking('r1', '2026-04-01'), racking('r2', '2026-07-01'), spiral];
+    const bottling = bottled('b1', '2026-10-01');
+    expect(conditionSpans(facts('bottled', [...rackedThenOak, bottling]), 'oak-in')).toEqual(spiralIn('2026-10-01'));
+    // A removal logged after the bottling does not reach past it.
+    expect(conditionSpans(facts('bottled', [...rackedThenOak, bottling, removed('x1', '2026-10-05', 'k1')]), 'oak-in')).toEqual(
+      spiralIn('2026-10-01'),
+    );
+    expect(conditionSpans(facts('bottled', [...rackedThenOak, removed('x1', '2026-09-01', 'k1'), bottling]), 'oak-in')).toEqual(
+      spiralIn('2026-09-01'),
+    );
   });
 
   it('gives oak taken out the same day it went in no span', () => {
