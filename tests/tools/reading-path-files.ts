@@ -9,7 +9,8 @@
  * it logs a second reading — open the dialog, type a gravity, save, until the page shows it — and
  * lists every file of the checkout (src/, server/, shared/) with a function that ran. A quiet
  * window of the same length, measured just before, names what runs without anyone asking
- * (timers, pollers); those files are left out and listed apart.
+ * (timers, pollers); those files are left out and listed apart. The server's scheduled jobs are
+ * turned off, so that window holds only what no request can explain.
  *
  * `npm run measure:reading-path [checkout]` — by default this one. Any commit can be measured by
  * pointing it at a worktree of it (with node_modules linked), so the figure before a change and
@@ -147,7 +148,17 @@ async function main(): Promise<void> {
       await start(
         process.execPath,
         [`--inspect=127.0.0.1:${inspectorPort}`, '--import', 'tsx', 'server/index.ts'],
-        { PORT: String(apiPort), PG_PORT: String(pgPort), DATA_DIR: dataDir, TSX_TSCONFIG_PATH: 'tsconfig.server.json' },
+        {
+          PORT: String(apiPort),
+          PG_PORT: String(pgPort),
+          DATA_DIR: dataDir,
+          TSX_TSCONFIG_PATH: 'tsconfig.server.json',
+          // The reminder pass and the outbox worker run the same files as a request (the actor, the
+          // unit of work, the journal's queries): left on, a pass in the quiet window would take
+          // those files out of the count. Checkouts from before the mail work ignore both.
+          REMINDER_CRON: 'off',
+          MAIL_WORKER_INTERVAL_MS: '600000',
+        },
         `http://127.0.0.1:${apiPort}/api/auth/me`,
       ),
     );
