@@ -162,6 +162,23 @@ describe('where a rule ends', () => {
     expect(untilDate(weekly, twice, '2026-03-21')).toBe('2026-03-22');
   });
 
+  it('ends when the oak comes out or when the rule\'s "until" comes, whichever is sooner', () => {
+    // Oak in on 12 March, a stabiliser on 20 March, the oak out on 10 April: weekly checks until
+    // stabilised stop at the stabiliser, although the oak's span runs on to 10 April.
+    const oakChecks = rule({
+      what: 'oak-check',
+      when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'oak-in' },
+      until: { event: 'stabilised' },
+    });
+    const oakOutLate = facts('secondary', [
+      racking('rk1', '2026-03-10'),
+      addition('oak', '2026-03-12', 'oak'),
+      addition('s', '2026-03-20', 'stabiliser'),
+      { kind: 'removed', id: 'out', on: '2026-04-10', additionId: 'oak' },
+    ]);
+    expect(occurrencesOf(oakChecks, oakOutLate, '2026-05-31').map((o) => [o.dueOn, o.endsOn])).toEqual([['2026-03-19', '2026-03-20']]);
+  });
+
   it('gives no task due on the day the rule ends', () => {
     // Weekly readings in primary (common practice); racked on 15 March, the day the second fell due.
     const weekly = rule({ what: 'reading', when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'primary' } });
@@ -243,6 +260,18 @@ describe('repeats over a long life', () => {
       [0, '2024-02-29'],
       [1, '2024-03-29'],
       [2, '2024-04-29'],
+    ]);
+  });
+
+  it('unrolls a repeat of several months from about one period before the history window', () => {
+    // Racked 15 January 2025, every 2 months: first due 15 March 2025, repeat n on the 15th, 2n months on.
+    // Ten calendar months from March 2025 to January 2026: five periods, so repeats from the fourth
+    // (15 November 2025, 75 days before 29 January: Python's datetime) up to the fifth (15 January 2026).
+    const everyTwoMonths = rule({ what: 'headspace-check', when: { type: 'every', every: { count: 2, unit: 'months' }, while: 'racked' } });
+    const racked = facts('bulk-ageing', [racking('rk1', '2025-01-15'), racking('rk2', '2025-01-16')], '2024-12-01');
+    expect(repeats(everyTwoMonths, racked, '2026-03-01', '2026-01-29')).toEqual([
+      [4, '2025-11-15'],
+      [5, '2026-01-15'],
     ]);
   });
 
