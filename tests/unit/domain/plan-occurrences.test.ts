@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { BatchFacts, FactEvent } from '../../../shared/domain/plans/batch-facts';
 import { gravityHeldOn, occurrencesOf, untilDate } from '../../../shared/domain/plans/occurrences';
-import { planRuleSchema, type PlanRule, type PlanRuleInput } from '../../../shared/schemas/plans';
+import { planRuleSchema, type Condition, type PlanRule, type PlanRuleInput } from '../../../shared/schemas/plans';
 
 /**
  * The dates a single rule gives a batch, before the journal closes any of them: what each
@@ -89,12 +89,10 @@ describe('what an "after" rule counts from', () => {
 });
 
 describe('where a rule ends', () => {
+  const weeklyUntil = (what: PlanRuleInput['what'], condition: Condition, until: PlanRuleInput['until']) =>
+    rule({ what, when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: condition }, until });
   const readingsUntil = (until: PlanRuleInput['until'], events: FactEvent[], stage: BatchFacts['stage'] = 'secondary') =>
-    occurrencesOf(
-      rule({ what: 'reading', when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'in-vessels' }, until }),
-      facts(stage, events),
-      '2026-05-31',
-    ).map((o) => o.dueOn);
+    occurrencesOf(weeklyUntil('reading', 'in-vessels', until), facts(stage, events), '2026-05-31').map((o) => o.dueOn);
 
   it('stops a weekly rule at the first racking, bottling or stabiliser after it began', () => {
     // Started 1 March: weekly from 8 March.
@@ -113,11 +111,7 @@ describe('where a rule ends', () => {
 
   it('stops at bottling, even work that is not on the liquid in vessels', () => {
     // A partial bottling leaves the batch in vessels: only the rule's "until" ends a weekly tasting.
-    const weeklyTasting = rule({
-      what: 'tasting',
-      when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'in-vessels' },
-      until: { event: 'bottling' },
-    });
+    const weeklyTasting = weeklyUntil('tasting', 'in-vessels', { event: 'bottling' });
     const partlyBottled = facts('bulk-ageing', [
       racking('rk1', '2026-03-10'),
       racking('rk2', '2026-03-12'),
@@ -153,11 +147,7 @@ describe('where a rule ends', () => {
     ]);
     expect(untilDate(tasteAfterStabiliser, twice, '2026-03-20')).toBe('2026-03-22');
     // A repeating rule is ended by an entry on the day its span begins.
-    const weekly = rule({
-      what: 'reading',
-      when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'racked' },
-      until: { event: 'stabilised' },
-    });
+    const weekly = weeklyUntil('reading', 'racked', { event: 'stabilised' });
     expect(untilDate(weekly, twice, '2026-03-20')).toBe('2026-03-20');
     expect(untilDate(weekly, twice, '2026-03-21')).toBe('2026-03-22');
   });
@@ -165,11 +155,7 @@ describe('where a rule ends', () => {
   it('ends when the oak comes out or when the rule\'s "until" comes, whichever is sooner', () => {
     // Oak in on 12 March, a stabiliser on 20 March, the oak out on 10 April: weekly checks until
     // stabilised stop at the stabiliser, although the oak's span runs on to 10 April.
-    const oakChecks = rule({
-      what: 'oak-check',
-      when: { type: 'every', every: { count: 1, unit: 'weeks' }, while: 'oak-in' },
-      until: { event: 'stabilised' },
-    });
+    const oakChecks = weeklyUntil('oak-check', 'oak-in', { event: 'stabilised' });
     const oakOutLate = facts('secondary', [
       racking('rk1', '2026-03-10'),
       addition('oak', '2026-03-12', 'oak'),
