@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { z } from 'zod';
+import { restoreQuerySchema } from '../../shared/schemas/archive';
 import { UnsupportedMediaError } from '../http/errors';
 import { cellarHandler } from '../http/handle';
 import { exportArchive, restoreCellar } from './archive.service';
@@ -21,7 +21,7 @@ export function archiveRoutes(ds: DataSource): Router {
   );
   router.post(
     '/restorations',
-    cellar({ query: z.object({ name: z.string().trim().max(80).optional() }) }, async ({ query }, actor, tx, req, res) => {
+    cellar({ query: restoreQuerySchema }, async ({ query }, actor, tx, req, res) => {
       if (!req.is(['application/gzip', 'application/x-gzip', 'application/octet-stream']))
         throw new UnsupportedMediaError('Send the archive as application/gzip.');
       const restored = await restoreCellar(actor, tx, req, { name: query.name });

@@ -1,10 +1,11 @@
 import type { Writable } from 'node:stream';
 import type { EntityManager } from 'typeorm';
+import type { RestoredCellar } from '../../shared/schemas/archive';
 import { requireRole, type Actor } from '../core/actor';
 import type { UploadChunks } from '../exchange/csv-upload';
 import { ForbiddenError } from '../http/errors';
 import { openArchive } from './archive-reader';
-import { restoreArchive, type RemappedCode } from './archive-restore';
+import { restoreArchive } from './archive-restore';
 import { writeArchive } from './archive-writer';
 
 /**
@@ -22,12 +23,7 @@ export async function exportArchive(actor: Actor, tx: EntityManager, out: Writab
  * Restores an archive as a new cellar kept by the acting Keeper (of this cellar, on this
  * installation); the archive is checked whole before anything is written.
  */
-export async function restoreCellar(
-  actor: Actor,
-  tx: EntityManager,
-  upload: UploadChunks,
-  options: { name?: string } = {},
-): Promise<{ cellarId: string; name: string; remappedCodes: RemappedCode[] }> {
+export async function restoreCellar(actor: Actor, tx: EntityManager, upload: UploadChunks, options: { name?: string } = {}): Promise<RestoredCellar> {
   requireRole(actor, 'keeper');
   if (!actor.userId) throw new ForbiddenError('A restore makes a new cellar for a person; the cellar itself cannot do it.');
   const archive = await openArchive(upload);

@@ -1,12 +1,5 @@
-import { z } from 'zod';
+import { restoredCellarSchema, type RestoredCellar } from '@shared/schemas/archive';
 import { errorFromAnswer, offlineError, cellarPath, withQuery } from './http';
-
-export const restoredCellarSchema = z.object({
-  cellarId: z.uuid(),
-  name: z.string(),
-  remappedCodes: z.array(z.object({ table: z.string(), name: z.string(), from: z.string(), to: z.string() })),
-});
-export type RestoredCellar = z.infer<typeof restoredCellarSchema>;
 
 /** Where the whole cellar downloads as one .tar.gz (a plain link: the browser saves it). */
 export const archiveUrl = (cellarId: string): string => cellarPath(cellarId, 'archive');
