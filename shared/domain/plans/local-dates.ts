@@ -51,5 +51,4 @@ export function daysBetween(from: string, to: string): number {
   return Math.round((toUtc(to) - toUtc(from)) / DAY_MS);
 }
 
-export const minDate = (a: string, b: string): string => (a < b ? a : b);
 export const maxDate = (a: string, b: string): string => (a > b ? a : b);

@@ -1,5 +1,5 @@
 import { STABLE_TOLERANCE_SG } from '../../calc';
-import { CONDITION_LABELS, type PlanRule } from '../../schemas/plans';
+import { CONDITION_LABELS, type Anchor, type PlanRule } from '../../schemas/plans';
 import type { Stage } from '../../schemas/batches';
 import { conditionSpans, stageStarts, vesselsEnd, type BatchFacts, type FactEvent } from './batch-facts';
 import { addPeriod, daysBetween } from './local-dates';
@@ -27,14 +27,13 @@ const earliest = (...dates: (string | null)[]): string | null => dates.filter((d
 
 type Addition = Extract<FactEvent, { kind: 'addition' }>;
 
-/** Anchors of an "after" rule: the dated moments it counts from. */
-function anchorsOf(rule: PlanRule, facts: BatchFacts): { ref: string; on: string; words: string; addition?: Addition }[] {
-  if (rule.when.type !== 'after') return [];
+/** Anchors of an "after" rule (its `when.anchor`): the dated moments it counts from. */
+function anchorsOf(rule: PlanRule, anchor: Anchor, facts: BatchFacts): { ref: string; on: string; words: string; addition?: Addition }[] {
   const rackings = facts.events.filter((e) => e.kind === 'racking');
   const additions = facts.events.filter((e): e is Addition => e.kind === 'addition');
   // Oak rules follow oak; any other rule follows every addition.
   const concerns = (a: Addition) => !(rule.what === 'oak-check' || rule.what === 'oak-out') || a.category === 'oak' || a.removeOn !== null;
-  switch (rule.when.anchor) {
+  switch (anchor) {
     case 'start':
       return [{ ref: 'start', on: facts.startedOn, words: `the start (${facts.startedOn})` }];
     case 'first-racking':
@@ -118,7 +117,7 @@ export function occurrencesOf(rule: PlanRule, facts: BatchFacts, horizon: string
   const when = rule.when;
   const leftVessels = VESSEL_WORK.has(rule.what) ? vesselsEnd(facts) : null;
   if (when.type === 'after') {
-    return anchorsOf(rule, facts).flatMap((anchor) => {
+    return anchorsOf(rule, when.anchor, facts).flatMap((anchor) => {
       const dueOn = addPeriod(anchor.on, when.after);
       const endsOn = earliest(untilDate(rule, facts, anchor.on), leftVessels);
       if (!beforeEnd(dueOn, endsOn)) return [];
