@@ -139,7 +139,7 @@ export async function labelChoices(actor: Actor, tx: EntityManager, q?: string):
   const pattern = q ? like(q) : '%';
   const vessels = await tx.query(
     `SELECT v.id, v.code, v.name, b.name AS "batchName",
-            CASE WHEN r.id IS NULL THEN NULL ELSE r.name || ' · shelf ' || s.number || ' · slot ' || p.slot END AS place
+            CASE WHEN r.id IS NULL THEN NULL ELSE json_build_object('rackName', r.name, 'shelfNumber', s.number, 'slot', p.slot) END AS place
        FROM vessels v LEFT JOIN batches b ON b.id = v.batch_id
        LEFT JOIN placements p ON p.vessel_id = v.id LEFT JOIN shelves s ON s.id = p.shelf_id LEFT JOIN racks r ON r.id = s.rack_id
       WHERE v.cellar_id = $1 AND v.retired_at IS NULL AND (v.name ILIKE $2 OR v.code ILIKE $2 OR b.name ILIKE $2)

@@ -95,7 +95,7 @@ export async function checkShelf(actor: Actor, tx: EntityManager, shelfId: strin
       .map((r) => ({
         ...thing(r),
         version: r.version,
-        recordedAt: r.shelfId ? `${r.rackName} · shelf ${r.shelfNumber} · slot ${r.slot}` : null,
+        recordedAt: r.shelfId ? { rackName: r.rackName!, shelfNumber: r.shelfNumber!, slot: r.slot! } : null,
       })),
     unknown: scanned.filter((c) => !byCode.has(c)),
     freeSlots: Array.from({ length: shelf.slotCount }, (_, i) => i + 1).filter((s) => !taken.has(s)),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { labelCodeSchema } from './vessels';
+import { labelCodeSchema, placeWordsSchema } from './vessels';
 
 /** What a label can be printed for; each has its own layout in a template. */
 export const LABEL_KINDS = ['vessel', 'case', 'lot'] as const;
@@ -25,7 +25,12 @@ export type LabelTemplateSummary = z.infer<typeof labelTemplateSummarySchema>;
 const idList = z
   .string()
   .max(20000)
-  .transform((s) => s.split(',').map((p) => p.trim()).filter(Boolean))
+  .transform((s) =>
+    s
+      .split(',')
+      .map((p) => p.trim())
+      .filter(Boolean),
+  )
   .pipe(z.array(z.uuid({ message: 'must be a list of ids (UUIDs) separated by commas' })).max(1000, 'at most 1000 at once'));
 
 /** What to print: any mix of the selections; all of them are limited to the cellar. */
@@ -48,7 +53,10 @@ export const labelPdfQuerySchema = labelSelectionSchema.extend({
   /** Labels already used on the first sheet. */
   skip: z.coerce.number().int('whole labels').min(0, 'cannot be negative').max(500).default(0),
   /** Answer as an attachment (download) instead of inline (preview). */
-  download: z.enum(['true', 'false']).transform((v) => v === 'true').default(false),
+  download: z
+    .enum(['true', 'false'])
+    .transform((v) => v === 'true')
+    .default(false),
 });
 export type LabelPdfQuery = z.input<typeof labelPdfQuerySchema>;
 
@@ -58,7 +66,7 @@ export const labelChoicesQuerySchema = z.object({ q: z.string().trim().max(80).o
 /** What the Labels page can offer to print. */
 export const labelChoicesSchema = z.object({
   vessels: z.array(
-    z.object({ id: z.uuid(), code: z.string(), name: z.string(), batchName: z.string().nullable(), place: z.string().nullable() }),
+    z.object({ id: z.uuid(), code: z.string(), name: z.string(), batchName: z.string().nullable(), place: placeWordsSchema.nullable() }),
   ),
   lots: z.array(
     z.object({
@@ -114,7 +122,12 @@ export const shelfCheckQuerySchema = z.object({
     .string()
     .max(5000)
     .default('')
-    .transform((s) => s.split(',').map((p) => p.trim()).filter(Boolean))
+    .transform((s) =>
+      s
+        .split(',')
+        .map((p) => p.trim())
+        .filter(Boolean),
+    )
     .pipe(z.array(labelCodeSchema).max(200, 'at most 200 codes at once')),
 });
 
@@ -126,7 +139,7 @@ export const shelfCheckSchema = z.object({
   /** Expected but not scanned. */
   missing: z.array(shelfThingSchema.extend({ slot: z.number().int() })),
   /** Scanned here but recorded elsewhere (or nowhere). */
-  misplaced: z.array(shelfThingSchema.extend({ recordedAt: z.string().nullable(), version: z.number().int() })),
+  misplaced: z.array(shelfThingSchema.extend({ recordedAt: placeWordsSchema.nullable(), version: z.number().int() })),
   /** Scanned codes that are not a vessel or case of this cellar. */
   unknown: z.array(z.string()),
   /** Free slots of this shelf, lowest first. */

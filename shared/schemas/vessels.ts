@@ -34,6 +34,9 @@ export const slotRefSchema = z.object({
 });
 export type SlotRef = z.infer<typeof slotRefSchema>;
 
+/** Where a thing sits, as a screen words it (the client's placeText): data, so the wording lives in one place. */
+export const placeWordsSchema = slotRefSchema.pick({ rackName: true, shelfNumber: true, slot: true });
+
 export const vesselSchema = z.object({
   id: z.uuid(),
   code: z.string(),

@@ -7,6 +7,7 @@ import jsQR from 'jsqr';
 import { PNG } from 'pngjs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { abvBy } from '../../shared/calc';
+import { labelChoicesSchema } from '../../shared/schemas/labels';
 import { cellOrigin, mm } from '../../server/labels/layout';
 import { renderLabelsPdf } from '../../server/labels/render';
 import { labelDate, vesselLabel } from '../../server/labels/content';
@@ -326,5 +327,9 @@ describe('selections and refusals', () => {
     expect(res.body.batches[0].vesselIds).toEqual([codes.v1.id]);
     const all = await guest.get(`/api/cellars/${crew.cellar.id}/labels/choices`);
     expect(all.body.vessels.map((v: { id: string }) => v.id)).not.toContain(codes.foreign.id);
+    // Where each vessel sits comes as data; the page words it.
+    const vessels = labelChoicesSchema.parse(all.body).vessels;
+    expect(vessels.find((v) => v.id === codes.v3.id)?.place).toEqual({ rackName: 'Print rack', shelfNumber: 1, slot: 2 });
+    expect(vessels.find((v) => v.id === codes.v1.id)?.place).toBeNull();
   });
 });

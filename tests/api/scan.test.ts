@@ -198,7 +198,7 @@ describe('shelf check', () => {
         code: strayed.code,
         label: 'Strayed jug',
         version: strayed.version,
-        recordedAt: 'Check rack · shelf 2 · slot 2',
+        recordedAt: { rackName: 'Check rack', shelfNumber: 2, slot: 2 },
       },
     ]);
     expect(res.body.unknown).toEqual([foreign.code, UNKNOWN]);

@@ -275,7 +275,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
       await page.click('[data-test=check-code-submit]');
     }
     await expect.poll(() => page.textContent('[data-test=misplaced]')).toContain('Jug Gone Astray');
-    expect(await page.textContent('[data-test=misplaced]')).toContain('Recorded on Scan rack · shelf 2 · slot 3');
+    expect(await page.textContent('[data-test=misplaced]')).toContain('Recorded on Scan rack · shelf\u00a02 · slot\u00a03');
     expect(await page.textContent('[data-test=present]')).toContain('Jug In Place');
 
     await page.click('[data-test=move-misplaced]');

@@ -17,7 +17,7 @@ export function slotsOf(rack: Rack, shelf: Shelf): SlotView[] {
   return Array.from({ length: shelf.slotCount }, (_, i) => ({ rack, shelf, slot: i + 1, occupant: bySlot.get(i + 1) ?? null }));
 }
 
-/** "Rack A · shelf 2 · slot 4". */
+/** "Rack A · shelf 2 · slot 4", a no-break space after "shelf" and "slot" so a narrow line never ends on the word without its number. */
 export function placeText(place: { rackName: string; shelfNumber: number; slot: number } | null): string {
-  return place ? `${place.rackName} · shelf ${place.shelfNumber} · slot ${place.slot}` : 'Not on a shelf';
+  return place ? `${place.rackName} · shelf\u00a0${place.shelfNumber} · slot\u00a0${place.slot}` : 'Not on a shelf';
 }
