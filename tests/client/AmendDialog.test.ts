@@ -63,6 +63,15 @@ describe('AmendDialog, the start’s volume', () => {
     expect(api.callsTo('POST', amendPath)[0].body).toEqual({ reason: 'measured the carboy again', changes: { og: 1.105 } });
   });
 
+  it('shows and takes the start date in the user’s date style, and sends it as a calendar date', async () => {
+    localStorage.setItem('cellarwright.dateStyle', 'd-mmm-yyyy');
+    await openDialog();
+    expect(pick<HTMLInputElement>('[data-test=amend-startedOn]').value).toBe('1 Nov 2026');
+    await type('[data-test=amend-startedOn]', '3 Nov 2026');
+    await save();
+    expect(api.callsTo('POST', amendPath)[0].body).toEqual({ reason: 'measured the carboy again', changes: { startedOn: '2026-11-03' } });
+  });
+
   it('in metric units shows and sends litres', async () => {
     localStorage.setItem('cellarwright.units', 'metric');
     await openDialog();

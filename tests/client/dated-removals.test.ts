@@ -2,10 +2,11 @@ import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { DOMWrapper, flushPromises } from '@vue/test-utils';
 import type { BottleCase } from '@shared/schemas/bottles';
 import DrawDownDialog from '@/components/bottles/DrawDownDialog.vue';
+import AdditionDialog from '@/components/operations/AdditionDialog.vue';
 import RemovalDialog from '@/components/operations/RemovalDialog.vue';
 import { fakeApi, type FakeApi } from './support/fake-api';
-import { BATCH_ID, CELLAR_ID, ENTRY_ID, VESSEL_ID, operationResult, signIn } from './support/fixtures';
-import { mountInApp, pick } from './support/mount-in-app';
+import { BATCH_ID, CELLAR_ID, ENTRY_ID, VESSEL_ID, batchDetail, operationResult, signIn } from './support/fixtures';
+import { fieldMessage, mountInApp, pick } from './support/mount-in-app';
 
 const type = (selector: string, text: string) => new DOMWrapper(pick<HTMLInputElement>(selector)).setValue(text);
 /** Midday of 25 November 2026 on this device, as a moment: what a form means by "that day". */
@@ -41,6 +42,24 @@ describe('dating oak taken out and bottles that left', () => {
     const body = api.callsTo('POST', removals)[1].body as { additionEntryId: string; at: string };
     expect(body.additionEntryId).toBe(ENTRY_ID);
     expect(new Date(body.at).toISOString()).toBe(NOV_25_MIDDAY);
+  });
+
+  it('takes the take-out date of an addition in the user’s date style, as the day it happened beside it', async () => {
+    const additions = `/api/cellars/${CELLAR_ID}/batches/${BATCH_ID}/additions`;
+    api.on('GET', `/api/cellars/${CELLAR_ID}/batches/${BATCH_ID}`, { status: 200, body: batchDetail() });
+    api.on('POST', additions, { status: 201, body: operationResult() });
+    await mountInApp(AdditionDialog, `/c/${CELLAR_ID}/batches/${BATCH_ID}`, { props: { modelValue: true, batchId: BATCH_ID } });
+    await vi.waitFor(() => pick('[data-test=addition-remove-on]'));
+    expect(pick<HTMLInputElement>('[data-test=addition-remove-on]').placeholder).toBe('dd/mm/yyyy');
+
+    await type('[data-test=addition-name]', 'Raspberries');
+    await type('[data-test=addition-amount]', '500');
+    await type('[data-test=addition-remove-on]', '31/02/2099');
+    expect(fieldMessage('[data-test=addition-remove-on]')).toBe('Write the date like dd/mm/yyyy, or pick it on the calendar.');
+    await type('[data-test=addition-remove-on]', '14/03/2099');
+    pick('[data-test=addition-submit]').click();
+    await flushPromises();
+    expect(api.callsTo('POST', additions)[0].body).toMatchObject({ name: 'Raspberries', amount: 500, removeOn: '2099-03-14' });
   });
 
   it('logs bottles leaving a case on the day typed', async () => {
