@@ -24,9 +24,12 @@ export async function lockBatch(tx: EntityManager, cellarId: string, batchId: st
   return batch;
 }
 
+/** What an entry's checks need of its batch: the name for messages, the start for dates. */
+export type BatchNamed = Pick<Batch, 'id' | 'name' | 'startedOn'>;
+
 /** A batch locked for one more journal entry about its liquid, with what that entry's checks need. */
 export interface BatchForEntry {
-  batch: Batch;
+  batch: BatchNamed;
   timeZone: string;
   /** Whether any vessel holds the batch now. */
   inVessels: boolean;
@@ -35,12 +38,17 @@ export interface BatchForEntry {
 }
 
 /**
- * Locks the batch (as `lockBatch`), then reads the cellar's time zone, whether the batch is in
- * any vessel and the named vessel's contents in one statement — after the lock, so a racking
- * that committed while this waited is seen. Two statements where the general path takes five.
+ * Locks the batch row (as `lockBatch`, reading only its name and start), then reads the cellar's
+ * time zone, whether the batch is in any vessel and the named vessel's contents in one
+ * statement — after the lock, so a racking that committed while this waited is seen. Two
+ * statements where the general path takes five.
  */
 export async function lockBatchForEntry(tx: EntityManager, cellarId: string, batchId: string, vesselId: string | null): Promise<BatchForEntry> {
-  const batch = await lockBatch(tx, cellarId, batchId);
+  const [batch]: BatchNamed[] = await tx.query(
+    `SELECT id, name, started_on::text AS "startedOn" FROM batches WHERE id = $1 AND cellar_id = $2 FOR UPDATE`,
+    [batchId, cellarId],
+  );
+  if (!batch) throw new NotFoundError(NO_SUCH_BATCH);
   const [facts]: { timeZone: string; inVessels: boolean; namedId: string | null; namedBatchId: string | null }[] = await tx.query(
     `SELECT c.time_zone AS "timeZone",
             EXISTS (SELECT 1 FROM vessels v WHERE v.batch_id = $2) AS "inVessels",
@@ -70,7 +78,7 @@ export async function requireInVessels(tx: EntityManager, batch: Batch): Promise
   return vessels;
 }
 
-export const notInVesselsError = (batch: Batch): ConflictError =>
+export const notInVesselsError = (batch: Pick<Batch, 'name'>): ConflictError =>
   new ConflictError(`${batch.name} is not in any vessel any more (it was bottled, blended or moved on), so this cannot be done to it.`);
 
 /** Clocks on phones drift; a few minutes ahead is not "the future". */
@@ -81,7 +89,7 @@ const CLOCK_SLACK_MS = 5 * 60 * 1000;
  * (for an existing batch) before the batch was started.
  * @param at - ISO date-time from the request, if any
  */
-export function occurredAt(at: string | undefined, now: Date, batch?: Batch, timeZone = 'UTC'): Date {
+export function occurredAt(at: string | undefined, now: Date, batch?: Pick<Batch, 'name' | 'startedOn'>, timeZone = 'UTC'): Date {
   if (!at) return now;
   const moment = new Date(at);
   if (moment.getTime() > now.getTime() + CLOCK_SLACK_MS) throw new BadRequestError('body.at: that moment is in the future.');
