@@ -19,7 +19,7 @@ describe('packingSummary', () => {
 });
 
 describe('whereaboutsWords', () => {
-  it('says each vessel and its rack slot, or that it has none', () => {
+  it('says each vessel and its rack slot as every page words a place, or that it has none', () => {
     const place = {
       rackId: '5d1c7a52-3f0e-4b6a-9a51-1f2e3d4c5b6a',
       rackName: 'Rack A',
@@ -32,7 +32,7 @@ describe('whereaboutsWords', () => {
         { vesselName: 'Carboy 3', place },
         { vesselName: 'Jug 1', place: null },
       ]),
-    ).toBe('Carboy 3 · Rack A, shelf 2, slot 4; Jug 1 (no place set)');
+    ).toBe('Carboy 3 · Rack A · shelf\u00a02 · slot\u00a04; Jug 1 (no place set)');
     expect(whereaboutsWords(undefined)).toBe('');
   });
 });

@@ -22,8 +22,8 @@ describe('a vessel in the phone’s list', () => {
     signIn(fakeApi());
     await mountInApp(VesselCard, `/c/${CELLAR_ID}/vessels`, { props: { vessel: bucket(stage), warnPercent: 5 } });
     const figure = pick('[data-test=vessel-card-headspace]');
-    // A no-break space keeps the figure and its sign on one line on a narrow card.
-    expect(figure.textContent).toContain('33.3\u00a0% headspace');
+    // No-break spaces keep the figure, its sign and its word on one line on a narrow card.
+    expect(figure.textContent).toContain('33.3\u00a0%\u00a0headspace');
     expect(figure.classList.contains('text-negative')).toBe(warned);
   });
 });

@@ -1,15 +1,13 @@
 import type { BatchSummary } from '@shared/schemas/batches';
+import { placeText } from '@/components/racks/rack-types';
 
 type Whereabouts = NonNullable<BatchSummary['whereabouts']>;
 
 /**
- * Where a batch is, in a line: "Carboy 3 · Rack A, shelf 2, slot 4; Jug 1 (no place)".
+ * Where a batch is, in a line: "Carboy 3 · Rack A · shelf 2 · slot 4; Jug 1 (no place set)", each place
+ * worded as everywhere else (`placeText`).
  * Empty when the list did not say (an older answer) or the batch is in no vessel.
  */
 export function whereaboutsWords(whereabouts: Whereabouts | undefined): string {
-  return (whereabouts ?? [])
-    .map((w) =>
-      w.place ? `${w.vesselName} · ${w.place.rackName}, shelf ${w.place.shelfNumber}, slot ${w.place.slot}` : `${w.vesselName} (no place set)`,
-    )
-    .join('; ');
+  return (whereabouts ?? []).map((w) => (w.place ? `${w.vesselName} · ${placeText(w.place)}` : `${w.vesselName} (no place set)`)).join('; ');
 }
