@@ -48,7 +48,7 @@ export const FIRST_GLANCE_FUNCTION = `function showFirstGlance(answer, kind) {
     card.appendChild(text('div', seen.inIt ? 'text-h6 first-glance__batch' : 'text-h6 cw-muted', seen.inIt || 'Nothing: the vessel is empty'));
     if (seen.more) card.appendChild(text('div', 'first-glance__more', seen.more));
     var place = seen.place;
-    var where = place && typeof place.rackName === 'string' ? place.rackName + ' · shelf\u00a0' + place.shelfNumber + ' · slot\u00a0' + place.slot : 'Not on a shelf';
+    var where = place && typeof place.rackName === 'string' ? place.rackName + '\u00a0· shelf\u00a0' + place.shelfNumber + '\u00a0· slot\u00a0' + place.slot : 'Not on a shelf';
     card.appendChild(text('div', 'first-glance__place cw-muted', where));
     page.appendChild(text('p', 'q-mt-md cw-muted text-caption', 'Opening the whole record…'));
     document.body.appendChild(glance);

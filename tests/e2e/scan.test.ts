@@ -138,7 +138,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     expect(await glance.locator('i, b').count()).toBe(0);
     const words = await glance.innerText();
     expect(words).toContain('Sloe <b>Cyser</b>');
-    expect(words).toContain('Scan rack · shelf\u00a02 · slot\u00a01');
+    expect(words).toContain('Scan rack\u00a0· shelf\u00a02\u00a0· slot\u00a01');
     expect(await page.locator('[data-test=vessel-title]').count()).toBe(0);
     // Its header bar is drawn before the app sets its brand colours (src/css/app.css): the same colour.
     const bar = await page.$eval('.first-glance__bar', (el) => getComputedStyle(el).backgroundColor);
@@ -172,7 +172,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
     const words = await glance.innerText();
     expect(words).toContain('Bramble <b>Cider</b>');
     expect(words).toContain('12 of 12 bottles left');
-    expect(words).toContain('Scan rack · shelf\u00a02 · slot\u00a04');
+    expect(words).toContain('Scan rack\u00a0· shelf\u00a02\u00a0· slot\u00a04');
 
     await releaseApp();
     await page.locator('[data-test=case-2].case-card--focus').waitFor({ state: 'visible' });
@@ -275,7 +275,7 @@ describeInBrowser('scanning labels, in Chromium', (env) => {
       await page.click('[data-test=check-code-submit]');
     }
     await expect.poll(() => page.textContent('[data-test=misplaced]')).toContain('Jug Gone Astray');
-    expect(await page.textContent('[data-test=misplaced]')).toContain('Recorded on Scan rack · shelf\u00a02 · slot\u00a03');
+    expect(await page.textContent('[data-test=misplaced]')).toContain('Recorded on Scan rack\u00a0· shelf\u00a02\u00a0· slot\u00a03');
     expect(await page.textContent('[data-test=present]')).toContain('Jug In Place');
 
     await page.click('[data-test=move-misplaced]');

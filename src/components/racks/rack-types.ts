@@ -17,7 +17,10 @@ export function slotsOf(rack: Rack, shelf: Shelf): SlotView[] {
   return Array.from({ length: shelf.slotCount }, (_, i) => ({ rack, shelf, slot: i + 1, occupant: bySlot.get(i + 1) ?? null }));
 }
 
-/** "Rack A · shelf 2 · slot 4", a no-break space after "shelf" and "slot" so a narrow line never ends on the word without its number. */
+/**
+ * "Rack A · shelf 2 · slot 4". No-break spaces after "shelf" and "slot" keep each word with its number,
+ * and before each dot keep it at the end of a line, so a narrow line never starts with one.
+ */
 export function placeText(place: { rackName: string; shelfNumber: number; slot: number } | null): string {
-  return place ? `${place.rackName} · shelf\u00a0${place.shelfNumber} · slot\u00a0${place.slot}` : 'Not on a shelf';
+  return place ? `${place.rackName}\u00a0· shelf\u00a0${place.shelfNumber}\u00a0· slot\u00a0${place.slot}` : 'Not on a shelf';
 }
