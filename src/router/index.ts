@@ -50,7 +50,7 @@ export function createAppRouter(history: RouterHistory = createWebHistory()): Ro
   });
 
   router.afterEach((to) => {
-    document.title = to.meta.title ? `${to.meta.title} · Cellarwright` : 'Cellarwright';
+    document.title = to.meta.title ? `${to.meta.title}\u00a0· Cellarwright` : 'Cellarwright';
   });
 
   return router;

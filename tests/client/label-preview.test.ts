@@ -34,7 +34,7 @@ describe('label preview', () => {
     expect(fetchFake).toHaveBeenCalledTimes(1);
     expect(wrapper.get('[data-test=preview-frame]').attributes('src')).toBe('blob:preview-1');
     expect(wrapper.get('[data-test=open-labels]').attributes('href')).toBe('blob:preview-1');
-    expect(wrapper.get('[data-test=label-count]').text()).toBe('10 labels · 1 sheet');
+    expect(wrapper.get('[data-test=label-count]').text()).toBe('10 labels\u00a0· 1 sheet');
     // Still one request once everything has rendered: the frame never asks the server again.
     await flushPromises();
     expect(fetchFake).toHaveBeenCalledTimes(1);

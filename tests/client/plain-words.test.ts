@@ -32,7 +32,7 @@ describe('whereaboutsWords', () => {
         { vesselName: 'Carboy 3', place },
         { vesselName: 'Jug 1', place: null },
       ]),
-    ).toBe('Carboy 3 · Rack A\u00a0· shelf\u00a02\u00a0· slot\u00a04; Jug 1 (no place set)');
+    ).toBe('Carboy 3\u00a0· Rack A\u00a0· shelf\u00a02\u00a0· slot\u00a04; Jug 1 (no place set)');
     expect(whereaboutsWords(undefined)).toBe('');
   });
 });

@@ -25,5 +25,7 @@ describe('a vessel in the phone’s list', () => {
     // No-break spaces keep the figure, its sign and its word on one line on a narrow card.
     expect(figure.textContent).toContain('33.3\u00a0%\u00a0headspace');
     expect(figure.classList.contains('text-negative')).toBe(warned);
+    // A no-break space before every dot on the card: a line may end with a dot, never start with one.
+    expect(pick('.vessel-card__link').textContent).not.toMatch(/[ \t\n]\u00a0?·/);
   });
 });

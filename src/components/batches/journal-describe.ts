@@ -63,7 +63,7 @@ export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryD
       return {
         icon: 'add_circle',
         title: `Added ${payload.name}`,
-        lines: [`${payload.amount} ${payload.unit} · ${payload.category}`, removeOnWords(payload.removeOn, f)],
+        lines: [`${payload.amount} ${payload.unit}\u00a0· ${payload.category}`, removeOnWords(payload.removeOn, f)],
       };
     case 'removed':
       return { icon: 'remove_circle', title: `Took out ${payload.name}`, lines: [] };
@@ -81,7 +81,7 @@ export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryD
     case 'tasted':
       return {
         icon: 'wine_bar',
-        title: payload.score !== null ? `Tasted · ${tastingWords(payload.score)} (of ${TASTING_SCORE_MAX})` : 'Tasted',
+        title: payload.score !== null ? `Tasted\u00a0· ${tastingWords(payload.score)} (of ${TASTING_SCORE_MAX})` : 'Tasted',
         lines: [
           payload.appearance ? `Appearance: ${payload.appearance}` : '',
           payload.aroma ? `Aroma: ${payload.aroma}` : '',
@@ -95,7 +95,7 @@ export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryD
     case 'bottled':
       return {
         icon: 'liquor',
-        title: `Bottled · lot ${payload.lotCode}`,
+        title: `Bottled\u00a0· lot ${payload.lotCode}`,
         lines: [
           `${payload.bottleCount} × ${payload.bottleMl} mL in ${payload.caseCount} ${payload.caseCount === 1 ? 'case' : 'cases'}`,
           `From ${vesselList(payload.from, f)}`,
@@ -110,7 +110,7 @@ export function describeEntry(payload: JournalPayload, f: JournalFormat): EntryD
       return {
         icon: 'format_color_reset',
         title: `Emptied ${payload.vesselName}`,
-        lines: [`${f.volume(payload.volumeL)} poured out · ${EMPTYING_REASON_LABELS[payload.reason]}`, payload.note],
+        lines: [`${f.volume(payload.volumeL)} poured out\u00a0· ${EMPTYING_REASON_LABELS[payload.reason]}`, payload.note],
       };
     case 'amendment':
       return { icon: 'edit', title: 'Correction', lines: [payload.reason] };

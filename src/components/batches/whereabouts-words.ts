@@ -9,5 +9,5 @@ type Whereabouts = NonNullable<BatchSummary['whereabouts']>;
  * Empty when the list did not say (an older answer) or the batch is in no vessel.
  */
 export function whereaboutsWords(whereabouts: Whereabouts | undefined): string {
-  return (whereabouts ?? []).map((w) => (w.place ? `${w.vesselName} · ${placeText(w.place)}` : `${w.vesselName} (no place set)`)).join('; ');
+  return (whereabouts ?? []).map((w) => (w.place ? `${w.vesselName}\u00a0· ${placeText(w.place)}` : `${w.vesselName} (no place set)`)).join('; ');
 }

@@ -34,6 +34,6 @@ export function useDialogBatch(batchId: () => string) {
 export function batchVesselOptions(batch: BatchDetail | null, volume: (litres: number) => string, wholeLabel: string) {
   return [
     { value: null as string | null, label: wholeLabel },
-    ...(batch?.vessels ?? []).map((v) => ({ value: v.id as string | null, label: `${v.name} · ${volume(v.volumeL)}` })),
+    ...(batch?.vessels ?? []).map((v) => ({ value: v.id as string | null, label: `${v.name}\u00a0· ${volume(v.volumeL)}` })),
   ];
 }

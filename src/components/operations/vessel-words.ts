@@ -5,7 +5,7 @@ export function vesselOptionLabel(
   vessel: { name: string; code: string; capacityL: number; material?: string },
   volume: (litres: number) => string,
 ): string {
-  return [vessel.name, volume(vessel.capacityL), vessel.material, vessel.code].filter(Boolean).join(' · ');
+  return [vessel.name, volume(vessel.capacityL), vessel.material, vessel.code].filter(Boolean).join('\u00a0· ');
 }
 
 /**

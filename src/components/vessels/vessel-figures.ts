@@ -6,3 +6,11 @@ export function headspaceOf(vessel: Pick<Vessel, 'capacityL' | 'volumeL'>): { li
   if (vessel.volumeL == null || vessel.capacityL <= 0) return null;
   return headspace({ capacityL: vessel.capacityL, volumeL: Math.min(vessel.volumeL, vessel.capacityL) });
 }
+
+/**
+ * "4.3 % headspace", worded one way on every list. No-break spaces keep the figure, its sign and
+ * the word on one line in a narrow column.
+ */
+export function headspaceWords(percent: number): string {
+  return `${percent.toFixed(1)}\u00a0%\u00a0headspace`;
+}
