@@ -62,8 +62,9 @@ function liquidGravities(liquid: TopUpLiquid, batchOg: number, batchSg: number):
 export function figuresAfterTopUps(og: number, readings: readonly GravityPoint[], topUps: readonly TopUpEvent[]): FiguresAfterTopUps {
   type Step = { at: string; reading?: GravityPoint; topUp?: TopUpEvent };
   const steps: Step[] = [...readings.map((reading) => ({ at: reading.at, reading })), ...topUps.map((topUp) => ({ at: topUp.at, topUp }))];
-  // A reading and a top-up at the same moment: the reading was taken before the top-up.
-  steps.sort((a, b) => Date.parse(a.at) - Date.parse(b.at) || (a.reading ? -1 : 0) - (b.reading ? -1 : 0));
+  // A reading and a top-up at the same moment: the reading was taken before the top-up. Readings
+  // are listed first and the sort is stable (ECMAScript 2019), so a tie keeps that order.
+  steps.sort((a, b) => Date.parse(a.at) - Date.parse(b.at));
   let equivalentOg = og;
   let current: number | null = null;
   let estimated = false;
