@@ -61,11 +61,24 @@ export function fitText(text: string, box: { w: number; h: number }, maxPt: numb
   };
 }
 
+/**
+ * The words to wrap, with a lone middle dot ("Case 1 · 12 × 750 mL") kept on the word before it: a
+ * line may end with a dot, never start with one, as on every screen.
+ */
+function wordsKeepingDots(text: string): string[] {
+  const words: string[] = [];
+  for (const word of text.split(' ')) {
+    if (word === '·' && words.length) words[words.length - 1] += ' ·';
+    else words.push(word);
+  }
+  return words;
+}
+
 /** Greedy word wrap to `limit` (in 1-pt units); a word too long for a line is split. */
 export function wrapWords(text: string, limit: number, measure: Measure): string[] {
   const lines: string[] = [];
   let line = '';
-  for (const word of text.split(' ')) {
+  for (const word of wordsKeepingDots(text)) {
     const candidate = line ? `${line} ${word}` : word;
     if (measure(candidate) <= limit + EPS) {
       line = candidate;

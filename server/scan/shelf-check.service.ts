@@ -33,14 +33,17 @@ interface ThingRow {
 const PLACE_JOINS = `LEFT JOIN shelves s ON s.id = p.shelf_id LEFT JOIN racks r ON r.id = s.rack_id`;
 const PLACE_COLUMNS = `p.shelf_id AS "shelfId", p.slot, r.name AS "rackName", s.number AS "shelfNumber"`;
 
-/** This cellar's vessels and cases that sit on a shelf or carry one of the codes, one query. */
+/**
+ * This cellar's vessels and cases that sit on a shelf or carry one of the codes, one query. A case is
+ * worded "Quince Cyser · case 1" with a no-break space before the dot, as every screen joins facts.
+ */
 async function thingsOnShelfOrCoded(tx: EntityManager, cellarId: string, shelfId: string, codes: string[]): Promise<ThingRow[]> {
   return tx.query(
     `SELECT 'vessel' AS kind, v.id, v.code, v.name AS label, v.version, ${PLACE_COLUMNS}
        FROM vessels v LEFT JOIN placements p ON p.vessel_id = v.id ${PLACE_JOINS}
       WHERE v.cellar_id = $1 AND (p.shelf_id = $2 OR v.code = ANY($3::text[]))
      UNION ALL
-     SELECT 'case', c.id, c.code, b.name || ' · case ' || c.number, c.version, ${PLACE_COLUMNS}
+     SELECT 'case', c.id, c.code, b.name || chr(160) || '· case ' || c.number, c.version, ${PLACE_COLUMNS}
        FROM bottle_cases c JOIN bottle_lots l ON l.id = c.lot_id JOIN batches b ON b.id = l.batch_id
        LEFT JOIN placements p ON p.case_id = c.id ${PLACE_JOINS}
       WHERE c.cellar_id = $1 AND (p.shelf_id = $2 OR c.code = ANY($3::text[]))`,

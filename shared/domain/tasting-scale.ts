@@ -19,7 +19,7 @@ export const TASTING_POINTS_MAX = TASTING_SCALE.length;
 /** "6 · Fine"; an out-of-scale number as it is. */
 export function tastingWords(points: number): string {
   const step = TASTING_SCALE.find((s) => s.points === points);
-  return step ? `${step.points} · ${step.word}` : String(points);
+  return step ? `${step.points}\u00a0· ${step.word}` : String(points);
 }
 
 /** The highest score of the 20-point scale tastings were recorded on before this scale. */

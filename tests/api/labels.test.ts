@@ -165,6 +165,11 @@ describe('fitting text', () => {
     expect(cut.truncated).toBe(true);
     for (const w of cut.widths) expect(w).toBeLessThanOrEqual(30);
   });
+
+  it('never starts a line with a separator dot: the dot stays on the line before', () => {
+    // 10 characters a line at 6 pt: "aaaa bbbb ·" (11) does not fit, so "bbbb ·" moves down whole.
+    expect(fitText('aaaa bbbb · cc', { w: 30, h: 30 }, 12, 6, measure).lines).toEqual(['aaaa', 'bbbb · cc']);
+  });
 });
 
 describe.each([...labelTemplates().values()].map((t) => [t.id, t] as const))('template %s', (_id, template) => {

@@ -212,4 +212,11 @@ describe('shelf check', () => {
       { id: bottom.id, number: 2, slotCount: 5, used: 1 },
     ]);
   });
+
+  it('words a case as its batch and number, with a no-break space before the dot', async () => {
+    const { shelves } = await makeRack(ds, crew.cellar.id, 'Case rack', [3]);
+    await placeDirectly(ds, crew.cellar.id, shelves[0]!.id, 2, { caseId: box.id });
+    const res = await member.get(`/api/cellars/${crew.cellar.id}/labels/shelf/${shelves[0]!.id}/contents`);
+    expect(res.body.items.map((i: { slot: number; label: string }) => [i.slot, i.label])).toEqual([[2, 'Quince Cyser\u00a0· case 1']]);
+  });
 });

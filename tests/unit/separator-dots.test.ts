@@ -9,7 +9,9 @@ import { describe, expect, it } from 'vitest';
  * template (Vue condenses it to a space) or an element opened after one all let the browser break
  * right before the dot.
  */
-const root = path.resolve(import.meta.dirname, '../../src');
+const repo = path.resolve(import.meta.dirname, '../..');
+/** The client's own files, and the shared code whose words it shows. */
+const SCREEN_SOURCES = ['src', 'shared'];
 
 function sourceFiles(dir: string): string[] {
   return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
@@ -43,7 +45,14 @@ describe('a dot separator never starts a line', () => {
     expect(breakableDots('/** "Rack A · shelf 2" */')).toEqual([]);
   });
 
-  it.each(sourceFiles(root).map((f) => [path.relative(root, f), f]))('in src/%s', (_name, file) => {
+  const files = SCREEN_SOURCES.flatMap((dir) => sourceFiles(path.join(repo, dir)));
+
+  it('reads the client and the shared code', () => {
+    expect(files.some((f) => f.endsWith(path.join('src', 'components', 'vessels', 'VesselCard.vue')))).toBe(true);
+    expect(files.some((f) => f.endsWith(path.join('shared', 'domain', 'tasting-scale.ts')))).toBe(true);
+  });
+
+  it.each(files.map((f) => [path.relative(repo, f), f]))('in %s', (_name, file) => {
     expect(breakableDots(fs.readFileSync(file, 'utf8'))).toEqual([]);
   });
 });

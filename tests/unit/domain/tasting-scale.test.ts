@@ -13,8 +13,8 @@ describe('our tasting scale', () => {
     expect([TASTING_POINTS_MIN, TASTING_POINTS_MAX]).toEqual([1, 8]);
     expect(TASTING_SCALE.map((s) => s.points)).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
     expect(new Set(TASTING_SCALE.map((s) => s.word)).size).toBe(8);
-    expect(tastingWords(6)).toBe('6 · Fine');
-    expect(tastingWords(1)).toBe('1 · Pour away');
+    expect(tastingWords(6)).toBe('6\u00a0· Fine');
+    expect(tastingWords(1)).toBe('1\u00a0· Pour away');
     expect(tastingWords(12)).toBe('12');
   });
 });
