@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { sourceFiles } from '../helpers/source-files';
 
 /**
  * The client separates short facts with a middle dot ("Carboy 3 · 23 L"). Where the line wraps, the
@@ -12,13 +13,6 @@ import { describe, expect, it } from 'vitest';
 const repo = path.resolve(import.meta.dirname, '../..');
 /** The client's own files, and the shared code whose words it shows. */
 const SCREEN_SOURCES = ['src', 'shared'];
-
-function sourceFiles(dir: string): string[] {
-  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
-    const full = path.join(dir, e.name);
-    return e.isDirectory() ? sourceFiles(full) : /\.(ts|vue)$/.test(e.name) ? [full] : [];
-  });
-}
 
 /** Ordinary white space, then any opening span or template tags, then the dot (with or without a no-break space). */
 const BREAKABLE_DOT = /\s(?:<(?:span|template)\b(?:"[^"]*"|'[^']*'|[^'">])*>\s*)*(?:&nbsp;|\\u00a0)?·/g;
@@ -45,7 +39,7 @@ describe('a dot separator never starts a line', () => {
     expect(breakableDots('/** "Rack A · shelf 2" */')).toEqual([]);
   });
 
-  const files = SCREEN_SOURCES.flatMap((dir) => sourceFiles(path.join(repo, dir)));
+  const files = SCREEN_SOURCES.flatMap((dir) => sourceFiles(path.join(repo, dir), ['.ts', '.vue']));
 
   it('reads the client and the shared code', () => {
     expect(files.some((f) => f.endsWith(path.join('src', 'components', 'vessels', 'VesselCard.vue')))).toBe(true);

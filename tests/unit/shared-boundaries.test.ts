@@ -1,20 +1,14 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { sourceFiles } from '../helpers/source-files';
 
 const root = path.resolve(import.meta.dirname, '../../shared');
-
-function sourceFiles(dir: string): string[] {
-  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
-    const full = path.join(dir, e.name);
-    return e.isDirectory() ? sourceFiles(full) : e.name.endsWith('.ts') ? [full] : [];
-  });
-}
 
 const importsOf = (file: string) => [...fs.readFileSync(file, 'utf8').matchAll(/from\s+'([^']+)'/g)].map((m) => m[1]!);
 
 describe('shared/ is used by both sides and depends on neither', () => {
-  const files = sourceFiles(root);
+  const files = sourceFiles(root, ['.ts']);
 
   it('finds the shared sources', () => {
     expect(files.some((f) => f.endsWith(path.join('calc', 'index.ts')))).toBe(true);
