@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { sourceFiles } from '../helpers/source-files';
+import { sourceFiles } from './source-files';
 
 const root = path.resolve(import.meta.dirname, '../../shared');
 
