@@ -2,9 +2,7 @@ import path from 'node:path';
 import { z } from 'zod';
 import { mailEnvShape, mailSettingsFrom, type MailSettings } from './mail/mail-config';
 
-const booleanFromEnv = z
-  .enum(['true', 'false', '1', '0', 'yes', 'no'])
-  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+const booleanFromEnv = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v === 'true' || v === '1' || v === 'yes');
 
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),

@@ -56,7 +56,12 @@ export async function listBatches(actor: Actor, tx: EntityManager, query: ListQu
     tx,
     rows.map((r) => r.id),
   );
-  return { items: rows.map((r) => ({ ...toSummary(r), whereabouts: whereabouts.get(r.id) ?? [] })), total, page: query.page, pageSize: query.pageSize };
+  return {
+    items: rows.map((r) => ({ ...toSummary(r), whereabouts: whereabouts.get(r.id) ?? [] })),
+    total,
+    page: query.page,
+    pageSize: query.pageSize,
+  };
 }
 
 /** The Batch page's data, read in one consistent snapshot. */

@@ -20,7 +20,11 @@ import { User } from '../entities/user.entity';
 
 const argsSchema = z.tuple([
   z.string().trim().min(1, 'give a display name').max(80),
-  z.string().trim().toLowerCase().pipe(z.email({ message: 'give an e-mail address' })),
+  z
+    .string()
+    .trim()
+    .toLowerCase()
+    .pipe(z.email({ message: 'give an e-mail address' })),
   z.string().trim().min(1, 'give the cellar a name').max(80),
 ]);
 const passwordSchema = z.string().min(10, 'use at least 10 characters').max(200);

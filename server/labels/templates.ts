@@ -18,7 +18,10 @@ export class LabelTemplateError extends Error {}
  * @param dir - folder to read, labels/ by default
  */
 export function loadTemplates(dir: string = LABELS_DIR): LabelTemplate[] {
-  const files = fs.readdirSync(dir).filter((f) => f.endsWith('.json')).sort();
+  const files = fs
+    .readdirSync(dir)
+    .filter((f) => f.endsWith('.json'))
+    .sort();
   if (files.length === 0) throw new LabelTemplateError(`No label templates (*.json) in ${dir}.`);
   const seen = new Set<string>();
   return files.map((file) => {

@@ -74,7 +74,11 @@ function drawApprox(doc: PDFKit.PDFDocument, x: number, top: number, w: number, 
   const x0 = x + w * 0.08;
   const x1 = x + w * 0.92;
   const span = x1 - x0;
-  doc.save().lineWidth(0.085 * size).lineCap('round').strokeColor('black');
+  doc
+    .save()
+    .lineWidth(0.085 * size)
+    .lineCap('round')
+    .strokeColor('black');
   for (const lift of [0.26, 0.45]) {
     const yc = baseline - lift * size;
     doc

@@ -44,7 +44,9 @@ export function toVesselDto(row: VesselRow, place: SlotRef | null, now: Date): V
     capacityL: row.capacityL,
     state: vesselState(row, row.sanitisedValidDays, now),
     sanitisedAt: iso(row.sanitisedAt),
-    batch: row.batchId ? { id: row.batchId, name: row.batchName ?? '', kind: row.batchKind ?? '', ...(row.batchStage ? { stage: row.batchStage } : {}) } : null,
+    batch: row.batchId
+      ? { id: row.batchId, name: row.batchName ?? '', kind: row.batchKind ?? '', ...(row.batchStage ? { stage: row.batchStage } : {}) }
+      : null,
     volumeL: row.volumeL,
     filledAt: iso(row.filledAt),
     place,

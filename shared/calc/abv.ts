@@ -48,10 +48,7 @@ export function requireGravityPair(og: unknown, fg: unknown): { og: number; fg: 
   const o = requireGravity(og, 'og', 'Original gravity');
   const f = requireGravity(fg, 'fg', 'Final gravity');
   if (f > o) {
-    throw new CalcInputError(
-      'fg',
-      `Final gravity (${showNumber(f, 3)}) cannot be above the original gravity (${showNumber(o, 3)}).`,
-    );
+    throw new CalcInputError('fg', `Final gravity (${showNumber(f, 3)}) cannot be above the original gravity (${showNumber(o, 3)}).`);
   }
   return { og: o, fg: f };
 }
@@ -121,10 +118,7 @@ export function abvBy(og: number, fg: number, formula: AbvFormula = DEFAULT_ABV_
 export function apparentAttenuation(og: number, fg: number): number {
   const p = requireGravityPair(og, fg);
   if (p.og <= 1) {
-    throw new CalcInputError(
-      'og',
-      `Original gravity must be above 1.000 to work out attenuation (got ${showNumber(p.og, 3)}).`,
-    );
+    throw new CalcInputError('og', `Original gravity must be above 1.000 to work out attenuation (got ${showNumber(p.og, 3)}).`);
   }
   return ((p.og - p.fg) / (p.og - 1)) * 100;
 }

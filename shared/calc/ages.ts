@@ -88,11 +88,7 @@ export interface AgeMilestone {
  * @param now - the moment to judge at
  * @param months - milestones to check, in whole months
  */
-export function ageMilestones(
-  start: Date | string,
-  now: Date | string,
-  months: readonly number[] = AGE_MILESTONE_MONTHS,
-): AgeMilestone[] {
+export function ageMilestones(start: Date | string, now: Date | string, months: readonly number[] = AGE_MILESTONE_MONTHS): AgeMilestone[] {
   const s = requireDate(start, 'start', 'Start date');
   const n = requireDate(now, 'now', 'Date of judgement');
   if (!Array.isArray(months)) throw new CalcInputError('months', 'Milestones must be a list of month counts.');

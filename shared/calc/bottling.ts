@@ -27,10 +27,7 @@ export function bottlesFrom(input: BottlesFromInput): { bottles: number; remaind
   const bottleMl = requireAtLeast(input.bottleMl, 'bottleMl', 'Bottle size', 1, ' mL');
   const loss = requireNonNegative(input.lossL ?? 0, 'lossL', 'Loss', ' L');
   if (loss > volume) {
-    throw new CalcInputError(
-      'lossL',
-      `Loss (${showNumber(loss)} L) cannot be more than the volume (${showNumber(volume)} L).`,
-    );
+    throw new CalcInputError('lossL', `Loss (${showNumber(loss)} L) cannot be more than the volume (${showNumber(volume)} L).`);
   }
   // Work in microlitres-rounded millilitres so 22.5 L / 750 mL is exactly 30, not 29.
   const usableMl = Math.round((volume - loss) * 1e6) / 1e3;

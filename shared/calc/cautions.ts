@@ -24,8 +24,7 @@ export const CAUTION_LEGAL_LIMITS =
   'Home production limits and labelling rules vary by country and region. The limit here is the one you set; check the rules where you live.';
 
 /** Beside vessel moves and rackings with glass carboys. */
-export const CAUTION_GLASS =
-  'Glass carboys break. Carry full ones from the bottom, never by the neck; a crack can cut badly.';
+export const CAUTION_GLASS = 'Glass carboys break. Carry full ones from the bottom, never by the neck; a crack can cut badly.';
 
 /** Sanitiser concentrates (acids, oxidisers), beside marking a vessel sanitised. */
 export const CAUTION_SANITISER =

@@ -37,9 +37,7 @@ export function formatVolume(litres: number, system: UnitSystem): string {
   if (s === 'metric') {
     return l > 0 && l < 1 ? `${tidyNumber(l * 1000)} mL` : `${tidyNumber(l)} L`;
   }
-  return l > 0 && l < LITRES_PER_US_GALLON
-    ? `${tidyNumber(litresTo(l, 'US fl oz'))} US fl oz`
-    : `${tidyNumber(litresTo(l, 'US gal'))} US gal`;
+  return l > 0 && l < LITRES_PER_US_GALLON ? `${tidyNumber(litresTo(l, 'US fl oz'))} US fl oz` : `${tidyNumber(litresTo(l, 'US gal'))} US gal`;
 }
 
 /**
@@ -67,7 +65,5 @@ export function formatMass(kilograms: number, system: UnitSystem): string {
   if (s === 'metric') {
     return kg > 0 && kg < 1 ? `${tidyNumber(kg * 1000)} g` : `${tidyNumber(kg)} kg`;
   }
-  return kg > 0 && kg < KILOGRAMS_PER_POUND
-    ? `${tidyNumber(kilogramsTo(kg, 'oz'))} oz`
-    : `${tidyNumber(kilogramsTo(kg, 'lb'))} lb`;
+  return kg > 0 && kg < KILOGRAMS_PER_POUND ? `${tidyNumber(kilogramsTo(kg, 'oz'))} oz` : `${tidyNumber(kilogramsTo(kg, 'lb'))} lb`;
 }

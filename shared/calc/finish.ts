@@ -53,15 +53,7 @@ export interface PredictedFinish {
  */
 export function predictFinish(input: PredictFinishInput): PredictedFinish {
   const og = requireGravity(input.og, 'og', 'Original gravity');
-  const tolerance = requireRange(
-    input.toleranceAbv,
-    'toleranceAbv',
-    'Yeast alcohol tolerance',
-    0,
-    MAX_TOLERANCE_ABV,
-    0,
-    ' % ABV',
-  );
+  const tolerance = requireRange(input.toleranceAbv, 'toleranceAbv', 'Yeast alcohol tolerance', 0, MAX_TOLERANCE_ABV, 0, ' % ABV');
   const formula = requireOneOf(input.formula ?? DEFAULT_ABV_FORMULA, ABV_FORMULAS, 'formula', 'ABV formula');
   const dryFg = requireGravity(input.dryFg ?? DRY_FINISH_SG, 'dryFg', 'Dry finishing gravity');
 
@@ -84,10 +76,7 @@ export function fgAtAbv(og: number, abv: number, formula: AbvFormula = DEFAULT_A
   const f = requireOneOf(formula, ABV_FORMULAS, 'formula', 'ABV formula');
   const fg = f === 'balling' ? ballingFgAtAbv(o, a) : f === 'simple' ? o - a / ABV_SIMPLE_FACTOR : highGravityFgAtAbv(o, a);
   if (!(fg >= GRAVITY_MIN)) {
-    throw new CalcInputError(
-      'abv',
-      `${showNumber(a, 1)} % ABV cannot be reached from an original gravity of ${showNumber(o, 3)}.`,
-    );
+    throw new CalcInputError('abv', `${showNumber(a, 1)} % ABV cannot be reached from an original gravity of ${showNumber(o, 3)}.`);
   }
   return fg;
 }

@@ -67,15 +67,7 @@ export function requireFinite(value: unknown, field: string, label: string): num
  * @param decimals - decimals used to print the limits and the received value
  * @param unit - unit suffix for the message, e.g. ' °C' (include the leading space)
  */
-export function requireRange(
-  value: unknown,
-  field: string,
-  label: string,
-  min: number,
-  max: number,
-  decimals = 0,
-  unit = '',
-): number {
+export function requireRange(value: unknown, field: string, label: string, min: number, max: number, decimals = 0, unit = ''): number {
   const n = requireFinite(value, field, label);
   if (n < min || n > max) {
     throw new CalcInputError(
@@ -162,13 +154,7 @@ export function requireFiniteResult(value: number, field: string, label: string)
  * @param min - lowest accepted value
  * @param max - highest accepted value
  */
-export function requireInteger(
-  value: unknown,
-  field: string,
-  label: string,
-  min = 0,
-  max = Number.MAX_SAFE_INTEGER,
-): number {
+export function requireInteger(value: unknown, field: string, label: string, min = 0, max = Number.MAX_SAFE_INTEGER): number {
   const n = requireFinite(value, field, label);
   if (!Number.isInteger(n)) {
     throw new CalcInputError(field, `${label} must be a whole number (got ${showNumber(n)}).`);
@@ -176,9 +162,7 @@ export function requireInteger(
   if (n < min || n > max) {
     throw new CalcInputError(
       field,
-      max === Number.MAX_SAFE_INTEGER
-        ? `${label} must be ${min} or more (got ${n}).`
-        : `${label} must be between ${min} and ${max} (got ${n}).`,
+      max === Number.MAX_SAFE_INTEGER ? `${label} must be ${min} or more (got ${n}).` : `${label} must be between ${min} and ${max} (got ${n}).`,
     );
   }
   return n;
@@ -209,17 +193,9 @@ export function requireDate(value: unknown, field: string, label: string): Date 
  * @param field - argument name reported in the error
  * @param label - plain-words name of the value
  */
-export function requireOneOf<T extends string>(
-  value: unknown,
-  allowed: readonly T[],
-  field: string,
-  label: string,
-): T {
+export function requireOneOf<T extends string>(value: unknown, allowed: readonly T[], field: string, label: string): T {
   if ((allowed as readonly unknown[]).includes(value)) return value as T;
-  throw new CalcInputError(
-    field,
-    `${label} must be one of ${allowed.map((a) => `'${a}'`).join(', ')} (got ${describe(value)}).`,
-  );
+  throw new CalcInputError(field, `${label} must be one of ${allowed.map((a) => `'${a}'`).join(', ')} (got ${describe(value)}).`);
 }
 
 function describe(value: unknown): string {

@@ -28,27 +28,9 @@ export {
 
 export { type UnitSystem, UNIT_SYSTEMS, tidyNumber, formatVolume, formatTemperature, formatMass } from './display';
 
-export {
-  sgToBrix,
-  brixToSg,
-  sgToPlato,
-  platoToSg,
-  gravityPoints,
-  BRIX_MIN,
-  BRIX_MAX,
-  PLATO_MIN,
-  PLATO_MAX,
-} from './gravity';
+export { sgToBrix, brixToSg, sgToPlato, platoToSg, gravityPoints, BRIX_MIN, BRIX_MAX, PLATO_MIN, PLATO_MAX } from './gravity';
 
-export {
-  waterDensity,
-  correctGravity,
-  recordedGravity,
-  CORRECTION_MIN_C,
-  CORRECTION_MAX_C,
-  CALIBRATION_60F_C,
-  CALIBRATION_20C,
-} from './temperature';
+export { waterDensity, correctGravity, recordedGravity, CORRECTION_MIN_C, CORRECTION_MAX_C, CALIBRATION_60F_C, CALIBRATION_20C } from './temperature';
 
 export {
   type AbvFormula,
@@ -94,14 +76,7 @@ export {
   strengthOf,
 } from './style-bands';
 
-export {
-  type PredictFinishInput,
-  type PredictedFinish,
-  DRY_FINISH_SG,
-  MAX_TOLERANCE_ABV,
-  predictFinish,
-  fgAtAbv,
-} from './finish';
+export { type PredictFinishInput, type PredictedFinish, DRY_FINISH_SG, MAX_TOLERANCE_ABV, predictFinish, fgAtAbv } from './finish';
 
 export {
   type FermentationState,
@@ -155,12 +130,7 @@ export { type GravityPart, type AbvPart, mixedGravity, mixedAbv } from './mixing
 
 export { type AgeMilestone, AGE_MILESTONE_MONTHS, daysBetween, ageInDays, addMonths, ageMilestones } from './ages';
 
-export {
-  type AnnualVolumeInput,
-  type AnnualVolumeUsage,
-  US_HOME_WINE_LIMIT_L,
-  annualVolumeUsage,
-} from './production-limits';
+export { type AnnualVolumeInput, type AnnualVolumeUsage, US_HOME_WINE_LIMIT_L, annualVolumeUsage } from './production-limits';
 
 export {
   CAUTION_ESTIMATE,

@@ -49,10 +49,7 @@ export function annualVolumeUsage(input: AnnualVolumeInput): AnnualVolumeUsage {
     throw new CalcInputError('volumesL', 'Volumes must be a list of litres.');
   }
   const total = requireFiniteResult(
-    input.volumesL.reduce(
-      (sum: number, v: number, i: number) => sum + requireNonNegative(v, `volumesL[${i}]`, `Volume of batch ${i + 1}`, ' L'),
-      0,
-    ),
+    input.volumesL.reduce((sum: number, v: number, i: number) => sum + requireNonNegative(v, `volumesL[${i}]`, `Volume of batch ${i + 1}`, ' L'), 0),
     'volumesL',
     'Total volume',
   );

@@ -42,10 +42,7 @@ export function headspace(input: HeadspaceInput): { litres: number; percent: num
   const capacity = requirePositive(input.capacityL, 'capacityL', 'Vessel capacity', ' L');
   const volume = requireNonNegative(input.volumeL, 'volumeL', 'Volume', ' L');
   if (volume > capacity) {
-    throw new CalcInputError(
-      'volumeL',
-      `Volume (${showNumber(volume)} L) is more than the vessel holds (${showNumber(capacity)} L).`,
-    );
+    throw new CalcInputError('volumeL', `Volume (${showNumber(volume)} L) is more than the vessel holds (${showNumber(capacity)} L).`);
   }
   const litres = capacity - volume;
   return { litres, percent: (litres / capacity) * 100 };
@@ -117,10 +114,7 @@ export function bestVesselForRacking<T extends VesselCandidate>(input: BestVesse
   } else {
     loss = requireNonNegative(input.lossL, 'lossL', 'Expected loss', ' L');
     if (loss > volume) {
-      throw new CalcInputError(
-        'lossL',
-        `Expected loss (${showNumber(loss)} L) cannot be more than the volume racked (${showNumber(volume)} L).`,
-      );
+      throw new CalcInputError('lossL', `Expected loss (${showNumber(loss)} L) cannot be more than the volume racked (${showNumber(volume)} L).`);
     }
   }
   const needed = volume - loss;

@@ -17,7 +17,14 @@ export const batchDetailSchema = batchSummarySchema.extend({
   parents: z.array(z.object({ id: z.uuid(), name: z.string(), volumeL: z.number() })),
   children: z.array(z.object({ id: z.uuid(), name: z.string() })),
   lots: z.array(
-    z.object({ id: z.uuid(), code: z.string(), bottledOn: z.string(), bottleMl: z.number().int(), bottleCount: z.number().int(), bottlesLeft: z.number().int() }),
+    z.object({
+      id: z.uuid(),
+      code: z.string(),
+      bottledOn: z.string(),
+      bottleMl: z.number().int(),
+      bottleCount: z.number().int(),
+      bottlesLeft: z.number().int(),
+    }),
   ),
   /** For a split or blend: when it became a batch of its own (its age still counts from the must's start). */
   ownSince: z.string().nullable().optional(),

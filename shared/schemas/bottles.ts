@@ -65,7 +65,10 @@ export const departureSchema = z.object({
 
 export const lotListQuerySchema = z.object({
   q: z.string().trim().max(80).optional(),
-  inStock: z.enum(['true', 'false']).transform((v) => v === 'true').optional(),
+  inStock: z
+    .enum(['true', 'false'])
+    .transform((v) => v === 'true')
+    .optional(),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
 });

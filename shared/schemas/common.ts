@@ -6,9 +6,7 @@ export const uuidSchema = z.uuid({ message: 'must be an id (UUID)' });
 export const apiErrorSchema = z.object({
   error: z.string(),
   message: z.string(),
-  issues: z
-    .array(z.object({ path: z.string(), message: z.string() }))
-    .optional(),
+  issues: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorSchema>;
 

@@ -22,7 +22,13 @@ const plastic = { material: 'plastic', capacityL: 10 } as const;
 
 describe('POST /batches/:batchId/splits', () => {
   it('turns some vessels into a child batch that copies the recipe and remembers its parent', async () => {
-    const { result, vessels } = await batchInVessels(ds, crew, [9.5, 9.5, 9], { name: 'Cherry melomel', startedOn: '2025-11-02', og: 1.118, targetSweetness: 'sweet' }, plastic);
+    const { result, vessels } = await batchInVessels(
+      ds,
+      crew,
+      [9.5, 9.5, 9],
+      { name: 'Cherry melomel', startedOn: '2025-11-02', og: 1.118, targetSweetness: 'sweet' },
+      plastic,
+    );
     const parentId = result.batch.id;
     const versionBefore = (await vesselRow(ds, vessels[2].id)).version;
     const res = await crew.as.hand
@@ -63,20 +69,32 @@ describe('POST /batches/:batchId/splits', () => {
   });
 
   it('carries the parent’s stage and last racking on to the child', async () => {
-    const { result, vessels: [source] } = await batchInVessels(ds, crew, [20], { startedOn: '2025-06-01' });
+    const {
+      result,
+      vessels: [source],
+    } = await batchInVessels(ds, crew, [20], { startedOn: '2025-06-01' });
     const a = await sanitisedVessel(ds, crew.cellar.id, plastic);
     const b = await sanitisedVessel(ds, crew.cellar.id, plastic);
-    const racked = await crew.as.hand
-      .post(`${crew.batches}/${result.batch.id}/rackings`)
-      .send({ from: [{ vesselId: source.id }], to: [{ vesselId: a.id, volumeL: 9.8 }, { vesselId: b.id, volumeL: 9.8 }], at: '2025-07-01T10:00:00Z' });
+    const racked = await crew.as.hand.post(`${crew.batches}/${result.batch.id}/rackings`).send({
+      from: [{ vesselId: source.id }],
+      to: [
+        { vesselId: a.id, volumeL: 9.8 },
+        { vesselId: b.id, volumeL: 9.8 },
+      ],
+      at: '2025-07-01T10:00:00Z',
+    });
     expect(racked.status).toBe(201);
     expect(racked.body.batch.stage).toBe('secondary');
-    const res = await crew.as.hand.post(`${crew.batches}/${result.batch.id}/splits`).send({ vessels: [{ vesselId: b.id }], name: 'Spiced half', kind: 'metheglin' });
+    const res = await crew.as.hand
+      .post(`${crew.batches}/${result.batch.id}/splits`)
+      .send({ vessels: [{ vesselId: b.id }], name: 'Spiced half', kind: 'metheglin' });
     expect(res.status).toBe(201);
     expect(res.body.batch).toMatchObject({ stage: 'secondary', lastRackedAt: '2025-07-01T10:00:00.000Z' });
     // Racking the child once more takes it to bulk ageing: it counts the parent's racking.
     const c = await sanitisedVessel(ds, crew.cellar.id, plastic);
-    const again = await crew.as.hand.post(`${crew.batches}/${res.body.batch.id}/rackings`).send({ from: [{ vesselId: b.id }], to: [{ vesselId: c.id, volumeL: 9.5 }] });
+    const again = await crew.as.hand
+      .post(`${crew.batches}/${res.body.batch.id}/rackings`)
+      .send({ from: [{ vesselId: b.id }], to: [{ vesselId: c.id, volumeL: 9.5 }] });
     expect(again.status).toBe(201);
     expect(again.body.batch.stage).toBe('bulk-ageing');
     expect((await detailOf(result.batch.id)).stage).toBe('secondary');
@@ -84,16 +102,26 @@ describe('POST /batches/:batchId/splits', () => {
 
   it('refuses to split off every vessel, a vessel of another batch, and a kind it does not know', async () => {
     const { result, vessels } = await batchInVessels(ds, crew, [9, 9], {}, plastic);
-    const all = await crew.as.hand.post(`${crew.batches}/${result.batch.id}/splits`).send({ vessels: vessels.map((v) => ({ vesselId: v.id })), name: 'Everything', kind: 'melomel' });
+    const all = await crew.as.hand
+      .post(`${crew.batches}/${result.batch.id}/splits`)
+      .send({ vessels: vessels.map((v) => ({ vesselId: v.id })), name: 'Everything', kind: 'melomel' });
     expect(all.status).toBe(409);
     expect(all.body.message).toMatch(/A split must leave at least one vessel with/);
-    const { vessels: [foreign] } = await batchInVessels(ds, crew, [9], {}, plastic);
-    const wrong = await crew.as.hand.post(`${crew.batches}/${result.batch.id}/splits`).send({ vessels: [{ vesselId: foreign.id }], name: 'Stolen', kind: 'melomel' });
+    const {
+      vessels: [foreign],
+    } = await batchInVessels(ds, crew, [9], {}, plastic);
+    const wrong = await crew.as.hand
+      .post(`${crew.batches}/${result.batch.id}/splits`)
+      .send({ vessels: [{ vesselId: foreign.id }], name: 'Stolen', kind: 'melomel' });
     expect(wrong.status).toBe(409);
-    const kind = await crew.as.hand.post(`${crew.batches}/${result.batch.id}/splits`).send({ vessels: [{ vesselId: vessels[0].id }], name: 'Odd', kind: 'lager' });
+    const kind = await crew.as.hand
+      .post(`${crew.batches}/${result.batch.id}/splits`)
+      .send({ vessels: [{ vesselId: vessels[0].id }], name: 'Odd', kind: 'lager' });
     expect(kind.status).toBe(400);
     expect(kind.body.issues.map((i: { path: string }) => i.path)).toEqual(['body.kind']);
-    const guest = await crew.as.guest.post(`${crew.batches}/${result.batch.id}/splits`).send({ vessels: [{ vesselId: vessels[0].id }], name: 'Guest split', kind: 'melomel' });
+    const guest = await crew.as.guest
+      .post(`${crew.batches}/${result.batch.id}/splits`)
+      .send({ vessels: [{ vesselId: vessels[0].id }], name: 'Guest split', kind: 'melomel' });
     expect(guest.status).toBe(403);
     expect((await detailOf(result.batch.id)).children).toEqual([]);
   });
@@ -101,8 +129,20 @@ describe('POST /batches/:batchId/splits', () => {
 
 describe('POST /batches/blends', () => {
   it('blends two batches into new vessels: parentage, volume-weighted OG, highest tolerance', async () => {
-    const { result: heather, vessels: [h] } = await batchInVessels(ds, crew, [10], { name: 'Heather mead', og: 1.1, yeast: { name: 'Yeast H', toleranceAbv: 14 } }, plastic);
-    const { result: quince, vessels: [q1, q2] } = await batchInVessels(ds, crew, [3, 2], { name: 'Quince cyser', og: 1.06, yeast: { name: 'Yeast Q', toleranceAbv: 16 } }, { material: 'glass', capacityL: 4.5 });
+    const {
+      result: heather,
+      vessels: [h],
+    } = await batchInVessels(ds, crew, [10], { name: 'Heather mead', og: 1.1, yeast: { name: 'Yeast H', toleranceAbv: 14 } }, plastic);
+    const {
+      result: quince,
+      vessels: [q1, q2],
+    } = await batchInVessels(
+      ds,
+      crew,
+      [3, 2],
+      { name: 'Quince cyser', og: 1.06, yeast: { name: 'Yeast Q', toleranceAbv: 16 } },
+      { material: 'glass', capacityL: 4.5 },
+    );
     const big = await sanitisedVessel(ds, crew.cellar.id, { name: 'Blend carboy', material: 'plastic', capacityL: 15 });
     const res = await crew.as.hand.post(`${crew.batches}/blends`).send({
       from: [{ vesselId: h.id }, { vesselId: q1.id }, { vesselId: q2.id }],
@@ -128,7 +168,14 @@ describe('POST /batches/blends', () => {
       { id: heather.batch.id, name: 'Heather mead', volumeL: 10 },
       { id: quince.batch.id, name: 'Quince cyser', volumeL: 5 },
     ]);
-    expect(child.journal[0].payload).toMatchObject({ kind: 'started', volumeL: 14.5, parents: [{ batchId: heather.batch.id, volumeL: 10 }, { batchId: quince.batch.id, volumeL: 5 }] });
+    expect(child.journal[0].payload).toMatchObject({
+      kind: 'started',
+      volumeL: 14.5,
+      parents: [
+        { batchId: heather.batch.id, volumeL: 10 },
+        { batchId: quince.batch.id, volumeL: 5 },
+      ],
+    });
     expect(warnings).toContain(CAUTION_GLASS);
     expect(warnings.some((w) => w.startsWith('Blend carboy has'))).toBe(false);
 
@@ -139,10 +186,16 @@ describe('POST /batches/blends', () => {
   });
 
   it('leaves the OG unknown when a parent’s is unknown, and warns about headspace', async () => {
-    const { vessels: [a] } = await batchInVessels(ds, crew, [8], { og: null }, plastic);
-    const { vessels: [b] } = await batchInVessels(ds, crew, [8], { og: 1.09 }, plastic);
+    const {
+      vessels: [a],
+    } = await batchInVessels(ds, crew, [8], { og: null }, plastic);
+    const {
+      vessels: [b],
+    } = await batchInVessels(ds, crew, [8], { og: 1.09 }, plastic);
     const target = await sanitisedVessel(ds, crew.cellar.id, { name: 'Roomy tank', material: 'stainless', capacityL: 25 });
-    const res = await crew.as.hand.post(`${crew.batches}/blends`).send({ from: [{ vesselId: a.id }, { vesselId: b.id }], to: [{ vesselId: target.id, volumeL: 15.5 }], name: 'Mystery blend', kind: 'other' });
+    const res = await crew.as.hand
+      .post(`${crew.batches}/blends`)
+      .send({ from: [{ vesselId: a.id }, { vesselId: b.id }], to: [{ vesselId: target.id, volumeL: 15.5 }], name: 'Mystery blend', kind: 'other' });
     expect(res.status).toBe(201);
     expect(res.body.batch.og).toBeNull();
     const percent = Math.round(headspace({ capacityL: 25, volumeL: 15.5 }).percent);
@@ -150,10 +203,15 @@ describe('POST /batches/blends', () => {
   });
 
   it('refuses a blend of one batch, more than the sources hold, a dirty target without a reason, and a Guest', async () => {
-    const { vessels: [a1, a2] } = await batchInVessels(ds, crew, [5, 5], {}, plastic);
-    const { vessels: [b] } = await batchInVessels(ds, crew, [5], {}, plastic);
+    const {
+      vessels: [a1, a2],
+    } = await batchInVessels(ds, crew, [5, 5], {}, plastic);
+    const {
+      vessels: [b],
+    } = await batchInVessels(ds, crew, [5], {}, plastic);
     const target = await sanitisedVessel(ds, crew.cellar.id, { material: 'plastic', capacityL: 20 });
-    const send = (body: Record<string, unknown>, agent = crew.as.hand) => agent.post(`${crew.batches}/blends`).send({ name: 'Test blend', kind: 'melomel', ...body });
+    const send = (body: Record<string, unknown>, agent = crew.as.hand) =>
+      agent.post(`${crew.batches}/blends`).send({ name: 'Test blend', kind: 'melomel', ...body });
 
     const one = await send({ from: [{ vesselId: a1.id }, { vesselId: a2.id }], to: [{ vesselId: target.id, volumeL: 9 }] });
     expect(one.status).toBe(409);
@@ -167,13 +225,19 @@ describe('POST /batches/blends', () => {
     expect(refused.body.message).toMatch(/^Grubby bucket is dirty/);
     const guest = await send({ from: [{ vesselId: a1.id }, { vesselId: b.id }], to: [{ vesselId: target.id, volumeL: 9 }] }, crew.as.guest);
     expect(guest.status).toBe(403);
-    const { vessels: [theirs] } = await batchInVessels(ds, other, [5], {}, plastic);
+    const {
+      vessels: [theirs],
+    } = await batchInVessels(ds, other, [5], {}, plastic);
     const foreign = await send({ from: [{ vesselId: a1.id }, { vesselId: theirs.id }], to: [{ vesselId: target.id, volumeL: 9 }] });
     expect(foreign.status).toBe(404);
     for (const v of [a1, a2, b]) expect((await vesselRow(ds, v.id)).batch_id).not.toBeNull();
     expect((await vesselRow(ds, target.id)).batch_id).toBeNull();
 
-    const allowed = await send({ from: [{ vesselId: a1.id }, { vesselId: b.id }], to: [{ vesselId: dirty.id, volumeL: 9.6 }], override: { reason: 'Scrubbed and rinsed hot' } });
+    const allowed = await send({
+      from: [{ vesselId: a1.id }, { vesselId: b.id }],
+      to: [{ vesselId: dirty.id, volumeL: 9.6 }],
+      override: { reason: 'Scrubbed and rinsed hot' },
+    });
     expect(allowed.status).toBe(201);
     expect(allowed.body.batch.journal[0].payload.override).toBe('Scrubbed and rinsed hot');
   });

@@ -26,11 +26,32 @@ describe('POST /batches (start)', () => {
     const glass = await sanitisedVessel(ds, crew.cellar.id, { material: 'glass', capacityL: 23 });
     const bucket = await sanitisedVessel(ds, crew.cellar.id, { material: 'plastic', kind: 'bucket', capacityL: 30 });
     const before = await vesselRow(ds, glass.id);
-    const res = await crew.as.hand.post(crew.batches).send(startRequest([{ vessel: glass, volumeL: 19 }, { vessel: bucket, volumeL: 25.5 }], { name: 'Hedgerow melomel' }));
+    const res = await crew.as.hand.post(crew.batches).send(
+      startRequest(
+        [
+          { vessel: glass, volumeL: 19 },
+          { vessel: bucket, volumeL: 25.5 },
+        ],
+        { name: 'Hedgerow melomel' },
+      ),
+    );
     expect(res.status).toBe(201);
     const { batch, entryId, warnings } = operationResultSchema.parse(res.body);
-    expect(batch).toMatchObject({ name: 'Hedgerow melomel', kind: 'melomel', stage: 'primary', og: 1.11, volumeL: 44.5, vesselCount: 2, needsRacking: false });
-    expect(batch.vessels.map((v) => [v.id, v.volumeL]).sort()).toEqual([[glass.id, 19], [bucket.id, 25.5]].sort());
+    expect(batch).toMatchObject({
+      name: 'Hedgerow melomel',
+      kind: 'melomel',
+      stage: 'primary',
+      og: 1.11,
+      volumeL: 44.5,
+      vesselCount: 2,
+      needsRacking: false,
+    });
+    expect(batch.vessels.map((v) => [v.id, v.volumeL]).sort()).toEqual(
+      [
+        [glass.id, 19],
+        [bucket.id, 25.5],
+      ].sort(),
+    );
     expect(warnings).toEqual([CAUTION_GLASS]);
     expect(batch.journal).toHaveLength(1);
     const started = batch.journal[0];
@@ -64,7 +85,12 @@ describe('POST /batches (start)', () => {
     expect(retiredRes.status).toBe(409);
     expect(retiredRes.body.message).toMatch(/Cracked demijohn is retired/);
     const free = await sanitisedVessel(ds, crew.cellar.id);
-    const tooMuch = await crew.as.hand.post(crew.batches).send(startRequest([{ vessel: free, volumeL: 20 }, { vessel: small, volumeL: 5 }]));
+    const tooMuch = await crew.as.hand.post(crew.batches).send(
+      startRequest([
+        { vessel: free, volumeL: 20 },
+        { vessel: small, volumeL: 5 },
+      ]),
+    );
     expect(tooMuch.status).toBe(400);
     expect(tooMuch.body.message).toBe('Gallon jug holds 4.5 L; 5 L will not fit.');
     // All or nothing: the first vessel was not filled either.
@@ -81,7 +107,9 @@ describe('POST /batches (start)', () => {
     const lapsedRes = await crew.as.hand.post(crew.batches).send(startRequest([{ vessel: lapsed, volumeL: 10 }]));
     expect(lapsedRes.status).toBe(409);
     expect(lapsedRes.body.message).toMatch(/Old sanitised carboy was sanitised on .*more than 7 days ago/);
-    const allowed = await startThroughApi(crew.as.hand, crew.batches, [{ vessel: dirty, volumeL: 10 }], { override: { reason: 'Rinsed with boiling water' } });
+    const allowed = await startThroughApi(crew.as.hand, crew.batches, [{ vessel: dirty, volumeL: 10 }], {
+      override: { reason: 'Rinsed with boiling water' },
+    });
     expect(allowed.batch.journal[0].payload).toMatchObject({ kind: 'started', override: 'Rinsed with boiling water' });
   });
 
@@ -125,7 +153,9 @@ describe('GET /batches/:batchId', () => {
     const placed = detail.vessels.find((v) => v.id === vessels[0].id);
     expect(placed?.place).toEqual({ rackId: rack.id, rackName: rack.name, shelfId: rack.shelfIds[0], shelfNumber: 1, slot: 2 });
     expect(detail.vessels.find((v) => v.id === vessels[1].id)?.place).toBeNull();
-    expect(detail.lots).toEqual([{ id: box.lotId, code: expect.any(String), bottledOn: '2026-03-01', bottleMl: 750, bottleCount: 24, bottlesLeft: 12 }]);
+    expect(detail.lots).toEqual([
+      { id: box.lotId, code: expect.any(String), bottledOn: '2026-03-01', bottleMl: 750, bottleCount: 24, bottlesLeft: 12 },
+    ]);
     expect(detail.journal.map((e) => e.payload.kind)).toEqual(['note', 'started']);
     expect(detail.ingredients).toEqual([{ category: 'honey', name: 'Wildflower honey', amount: 6, unit: 'kg' }]);
     expect(detail).toMatchObject({ yeastName: 'Test wine yeast', yeastToleranceAbv: 14, plannedVolumeL: 24, volumeL: 24, vesselCount: 2 });
@@ -148,11 +178,16 @@ describe('GET /batches (list)', () => {
     const oldCider = await batchInVessels(ds, own, [20], { name: 'Old orchard cider', kind: 'cider', startedOn: daysAgo(200) });
     const longRacked = await batchInVessels(ds, own, [20], { name: 'Long racked melomel', startedOn: daysAgo(100) });
     const justRacked = await batchInVessels(ds, own, [20], { name: 'Just racked melomel', startedOn: daysAgo(100) });
-    for (const [made, days] of [[longRacked, 95], [justRacked, 10]] as const) {
+    for (const [made, days] of [
+      [longRacked, 95],
+      [justRacked, 10],
+    ] as const) {
       const target = await sanitisedVessel(ds, own.cellar.id);
-      const rack = await own.as.hand
-        .post(`${own.batches}/${made.result.batch.id}/rackings`)
-        .send({ from: [{ vesselId: made.vessels[0].id }], to: [{ vesselId: target.id, volumeL: 19 }], at: new Date(Date.now() - days * 86_400_000).toISOString() });
+      const rack = await own.as.hand.post(`${own.batches}/${made.result.batch.id}/rackings`).send({
+        from: [{ vesselId: made.vessels[0].id }],
+        to: [{ vesselId: target.id, volumeL: 19 }],
+        at: new Date(Date.now() - days * 86_400_000).toISOString(),
+      });
       expect(rack.status).toBe(201);
     }
     // Long finished, in no vessel: never "needs racking".
@@ -167,7 +202,10 @@ describe('GET /batches (list)', () => {
     expect(await list('stage=secondary')).toEqual({ total: 2, names: ['Just racked melomel', 'Long racked melomel'] });
     expect(await list('kind=cider')).toEqual({ total: 1, names: ['Old orchard cider'] });
     expect(await list('agedMonths=6')).toEqual({ total: 2, names: ['Gone 50% cyser', 'Old orchard cider'] });
-    expect(await list('agedMonths=3')).toEqual({ total: 4, names: ['Gone 50% cyser', 'Just racked melomel', 'Long racked melomel', 'Old orchard cider'] });
+    expect(await list('agedMonths=3')).toEqual({
+      total: 4,
+      names: ['Gone 50% cyser', 'Just racked melomel', 'Long racked melomel', 'Old orchard cider'],
+    });
     expect(await list('needsRacking=true')).toEqual({ total: 2, names: ['Long racked melomel', 'Old orchard cider'] });
     expect(await list('needsRacking=false')).toEqual({ total: 3, names: ['Fresh traditional', 'Gone 50% cyser', 'Just racked melomel'] });
     expect(await list('q=RACKED')).toEqual({ total: 2, names: ['Just racked melomel', 'Long racked melomel'] });
@@ -178,7 +216,13 @@ describe('GET /batches (list)', () => {
     const all = batchPageSchema.parse((await own.as.guest.get(`${own.batches}?sort=started-asc`)).body);
     expect(all.total).toBe(5);
     // Same start day: the one started first comes first.
-    expect(all.items.map((b) => b.id)).toEqual([gone.id, oldCider.result.batch.id, longRacked.result.batch.id, justRacked.result.batch.id, fresh.result.batch.id]);
+    expect(all.items.map((b) => b.id)).toEqual([
+      gone.id,
+      oldCider.result.batch.id,
+      longRacked.result.batch.id,
+      justRacked.result.batch.id,
+      fresh.result.batch.id,
+    ]);
     const summary = all.items.find((b) => b.id === longRacked.result.batch.id);
     expect(summary).toMatchObject({ stage: 'secondary', volumeL: 19, vesselCount: 1, needsRacking: true });
     expect(all.items.find((b) => b.id === gone.id)).toMatchObject({ volumeL: 0, vesselCount: 0, needsRacking: false });
@@ -235,7 +279,9 @@ describe('PATCH and DELETE /batches/:batchId', () => {
     expect(byHand.status).toBe(403);
     const inVessel = await crew.as.keeper.delete(`${crew.batches}/${result.batch.id}`);
     expect(inVessel.status).toBe(409);
-    expect(inVessel.body.message).toBe(`${result.batch.name} is still in ${vessels[0].name} (12 L). Rack, bottle or empty it before deleting the batch.`);
+    expect(inVessel.body.message).toBe(
+      `${result.batch.name} is still in ${vessels[0].name} (12 L). Rack, bottle or empty it before deleting the batch.`,
+    );
 
     const bottled = await makeBatch(ds, crew.cellar.id);
     await makeCase(ds, crew.cellar.id, bottled.id);

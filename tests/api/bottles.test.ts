@@ -41,7 +41,9 @@ describe('drawing bottles from a case', () => {
     expect(tooMany.status).toBe(409);
     expect(tooMany.body.message).toBe(`Case 3 has only ${third.bottlesLeft} bottles left.`);
 
-    const all = await as.hand.post(`${caseUrl(crew.cellar.id, third.id)}/departures`).send({ count: third.bottlesLeft, reason: 'gift', note: 'For the test neighbours' });
+    const all = await as.hand
+      .post(`${caseUrl(crew.cellar.id, third.id)}/departures`)
+      .send({ count: third.bottlesLeft, reason: 'gift', note: 'For the test neighbours' });
     expect(all.status).toBe(201);
     expect(bottleCaseSchema.parse(all.body)).toMatchObject({ id: third.id, bottlesLeft: 0, version: third.version + 1 });
 
@@ -66,10 +68,7 @@ describe('drawing bottles from a case', () => {
     const c = lot.cases[0];
     expect(c.bottlesLeft).toBe(10);
     const url = `${caseUrl(crew.cellar.id, c.id)}/departures`;
-    const [a, b] = await Promise.all([
-      as.hand.post(url).send({ count: 8, reason: 'sold' }),
-      as.keeper.post(url).send({ count: 8, reason: 'sold' }),
-    ]);
+    const [a, b] = await Promise.all([as.hand.post(url).send({ count: 8, reason: 'sold' }), as.keeper.post(url).send({ count: 8, reason: 'sold' })]);
     expect([a.status, b.status].sort()).toEqual([201, 409]);
     const refused = a.status === 409 ? a : b;
     expect(refused.body.message).toBe('Case 1 has only 2 bottles left.');
@@ -82,9 +81,15 @@ describe('drawing bottles from a case', () => {
     const { batch, lot } = await makeLotViaApi(ds, as.hand, crew, { bottles: 3, perCase: 2 });
     const stage = async () => (await ds.getRepository(Batch).findOneByOrFail({ id: batch.id })).stage;
     expect(await stage()).toBe('bottled');
-    await as.hand.post(`${caseUrl(crew.cellar.id, lot.cases[0].id)}/departures`).send({ count: 2, reason: 'drunk' }).expect(201);
+    await as.hand
+      .post(`${caseUrl(crew.cellar.id, lot.cases[0].id)}/departures`)
+      .send({ count: 2, reason: 'drunk' })
+      .expect(201);
     expect(await stage()).toBe('bottled');
-    await as.hand.post(`${caseUrl(crew.cellar.id, lot.cases[1].id)}/departures`).send({ count: 1, reason: 'broken' }).expect(201);
+    await as.hand
+      .post(`${caseUrl(crew.cellar.id, lot.cases[1].id)}/departures`)
+      .send({ count: 1, reason: 'broken' })
+      .expect(201);
     expect(await stage()).toBe('finished');
   });
 
@@ -169,7 +174,10 @@ describe('the lot list', () => {
     for (const name of ['Test sour cherry melomel', 'Test blackcurrant wine', 'Test cherry cyser']) {
       made.push(await makeLotViaApi(ds, hand, own, { bottles: 2, perCase: 2, name }));
     }
-    await hand.post(`${caseUrl(own.cellar.id, made[1].lot.cases[0].id)}/departures`).send({ count: 2, reason: 'drunk' }).expect(201);
+    await hand
+      .post(`${caseUrl(own.cellar.id, made[1].lot.cases[0].id)}/departures`)
+      .send({ count: 2, reason: 'drunk' })
+      .expect(201);
 
     const page1 = await hand.get(lotsUrl(own.cellar.id)).query({ pageSize: 2 });
     expect(page1.status).toBe(200);

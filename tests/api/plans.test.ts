@@ -45,7 +45,10 @@ describe('the default plans', () => {
     ]);
     for (const p of plans) for (const r of p.rules) expect(r.note).toMatch(/^Common practice/);
     // Reads never write: the plans keep their ids once a Keeper's first change writes them.
-    await crew.as.keeper.post(plansUrl()).send({ name: 'Spare plan', rules: [rule()] }).expect(201);
+    await crew.as.keeper
+      .post(plansUrl())
+      .send({ name: 'Spare plan', rules: [rule()] })
+      .expect(201);
     expect((await plansOf()).filter((p) => p.name !== 'Spare plan').map((p) => p.id)).toEqual(plans.map((p) => p.id));
     // Another cellar has its own copies.
     const theirs = await plansOf(other);

@@ -1,6 +1,13 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { bestVesselForRacking, headspace, rackingLoss } from '../../shared/calc';
-import { labelCodeSchema, rackTargetSuggestionSchema, vesselDetailSchema, vesselPageSchema, vesselSchema, type Vessel } from '../../shared/schemas/vessels';
+import {
+  labelCodeSchema,
+  rackTargetSuggestionSchema,
+  vesselDetailSchema,
+  vesselPageSchema,
+  vesselSchema,
+  type Vessel,
+} from '../../shared/schemas/vessels';
 import { makeBatch } from '../helpers/batches';
 import { makeCellarWithCrew, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { addJournalEntry, reading } from '../helpers/journal';
@@ -81,7 +88,9 @@ describe('GET /vessels', () => {
     ids.edge = (await makeVessel(ds, c, { name: 'Carboy six days', capacityL: 11, cleaningState: 'sanitised' })).id;
     await sanitisedDaysAgo(ds, ids.edge, 6);
     ids.retired = (await makeVessel(ds, c, { name: 'Cracked jug', kind: 'jug', capacityL: 4, cleaningState: 'sanitised', retiredAt: new Date() })).id;
-    ids.holding = (await makeVessel(ds, c, { name: 'Keg of cyser', kind: 'keg', material: 'stainless', capacityL: 19, cleaningState: 'sanitised' })).id;
+    ids.holding = (
+      await makeVessel(ds, c, { name: 'Keg of cyser', kind: 'keg', material: 'stainless', capacityL: 19, cleaningState: 'sanitised' })
+    ).id;
     const batch = await makeBatch(ds, c, { name: 'Quince cyser', kind: 'cyser' });
     await fillVessel(ds, ids.holding, batch.id, 18);
     const rack = await makeRack(ds, c, 'North wall', [3, 3]);
@@ -140,7 +149,10 @@ describe('GET /vessels', () => {
       const res = await get({ state });
       expect(names(res), state).toEqual(want);
       expect(res.body.total, state).toBe(want.length);
-      expect(res.body.items.every((v: Vessel) => v.state === state), state).toBe(true);
+      expect(
+        res.body.items.every((v: Vessel) => v.state === state),
+        state,
+      ).toBe(true);
     }
   });
 
@@ -187,7 +199,13 @@ describe('GET /vessels/:vesselId', () => {
     await addJournalEntry(ds, crew.cellar.id, batch.id, reading(1.1, null), { occurredAt: day(3) });
     const mine = await addJournalEntry(ds, crew.cellar.id, batch.id, reading(1.02, v.id, 1.021), { occurredAt: day(20) });
     await addJournalEntry(ds, crew.cellar.id, batch.id, reading(1.005, twin.id), { occurredAt: day(25) }); // the other vessel's
-    await addJournalEntry(ds, crew.cellar.id, batch.id, { kind: 'amendment', reason: 'misread', changes: { sg: 1.012, correctedSg: 1.013 } }, { amendsEntryId: mine });
+    await addJournalEntry(
+      ds,
+      crew.cellar.id,
+      batch.id,
+      { kind: 'amendment', reason: 'misread', changes: { sg: 1.012, correctedSg: 1.013 } },
+      { amendsEntryId: mine },
+    );
 
     const res = await as.guest.get(vessel(v.id));
     expect(res.status).toBe(200);

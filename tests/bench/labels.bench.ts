@@ -18,21 +18,22 @@ const template = labelTemplates().get(TEMPLATE);
 if (!template) throw new Error(`No template ${TEMPLATE}`);
 
 /** Invented vessels with names of varied length (text fitting does real work), new codes each call. */
-const makeItems = () => Array.from({ length: LABELS }, (_, i) =>
-  vesselLabel({
-    id: String(i),
-    code: randomLabelCode(),
-    name: i % 7 === 0 ? `Tall green demijohn number ${i} from the north cellar wall` : `Carboy ${i + 1}`,
-    vesselKind: 'carboy',
-    capacityL: 23,
-    batchName: i % 5 === 0 ? null : `Batch ${i % 12}: blackcurrant and linden honey melomel`,
-    batchKind: 'melomel',
-    startedOn: '2026-03-14',
-    og: 1.105 + (i % 10) / 1000,
-    lastSg: 1.004,
-    unitSystem: 'metric',
-  }),
-);
+const makeItems = () =>
+  Array.from({ length: LABELS }, (_, i) =>
+    vesselLabel({
+      id: String(i),
+      code: randomLabelCode(),
+      name: i % 7 === 0 ? `Tall green demijohn number ${i} from the north cellar wall` : `Carboy ${i + 1}`,
+      vesselKind: 'carboy',
+      capacityL: 23,
+      batchName: i % 5 === 0 ? null : `Batch ${i % 12}: blackcurrant and linden honey melomel`,
+      batchKind: 'melomel',
+      startedOn: '2026-03-14',
+      og: 1.105 + (i % 10) / 1000,
+      lastSg: 1.004,
+      unitSystem: 'metric',
+    }),
+  );
 
 const times: number[] = [];
 let bytes = 0;

@@ -137,11 +137,7 @@ describe('apparentAttenuation — (OG − FG)/(OG − 1), standard brewing defin
   });
 
   it('cannot be worked out for a must at or below 1.000', () => {
-    expectInputError(
-      () => apparentAttenuation(1.0, 0.99),
-      'og',
-      'Original gravity must be above 1.000 to work out attenuation (got 1.000).',
-    );
+    expectInputError(() => apparentAttenuation(1.0, 0.99), 'og', 'Original gravity must be above 1.000 to work out attenuation (got 1.000).');
     expect(apparentAttenuation(1.001, 1.0)).toBeCloseTo(100, 6);
   });
 });
@@ -168,11 +164,7 @@ describe('ABV input checks', () => {
   });
 
   it('rejects a final gravity above the original', () => {
-    expectInputError(
-      () => abvHighGravity(1.05, 1.06),
-      'fg',
-      'Final gravity (1.060) cannot be above the original gravity (1.050).',
-    );
+    expectInputError(() => abvHighGravity(1.05, 1.06), 'fg', 'Final gravity (1.060) cannot be above the original gravity (1.050).');
     expectInputError(() => abvSimple(1.05, 1.06), 'fg');
     expectInputError(() => abvBalling(1.05, 1.0501), 'fg');
     expectInputError(() => apparentAttenuation(1.05, 1.06), 'fg');

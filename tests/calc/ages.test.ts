@@ -1,13 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import {
-  daysBetween,
-  ageInDays,
-  addMonths,
-  ageMilestones,
-  annualVolumeUsage,
-  US_HOME_WINE_LIMIT_L,
-  AGE_MILESTONE_MONTHS,
-} from '../../shared/calc';
+import { daysBetween, ageInDays, addMonths, ageMilestones, annualVolumeUsage, US_HOME_WINE_LIMIT_L, AGE_MILESTONE_MONTHS } from '../../shared/calc';
 import { expectInputError } from './expect-input-error';
 
 // Gregorian calendar facts: 2024 is a leap year (366 days, 29 February), 2023 is not.

@@ -125,11 +125,7 @@ describe('fermentable input checks', () => {
   it('rejects impossible input, naming the argument', () => {
     expectInputError(() => fermentableForGravity({ volumeL: -5, targetOg: 1.1, source: 'honey' }), 'volumeL');
     expectInputError(() => fermentableForGravity({ volumeL: 5, targetOg: 1.25, source: 'honey' }), 'targetOg');
-    expectInputError(
-      () => fermentableForGravity({ volumeL: 5, targetOg: 1.05, startOg: 1.08, source: 'honey' }),
-      'targetOg',
-      /cannot lower it/,
-    );
+    expectInputError(() => fermentableForGravity({ volumeL: 5, targetOg: 1.05, startOg: 1.08, source: 'honey' }), 'targetOg', /cannot lower it/);
     expectInputError(() => fermentableForGravity({ volumeL: 5, targetOg: 1.1, startOg: 0.9, source: 'honey' }), 'startOg');
     expectInputError(() => fermentableForGravity({ volumeL: 5, targetOg: 1.1, source: 'maple' as never }), 'source');
     expectInputError(() => fermentableForGravity({ volumeL: Number.NaN, targetOg: 1.1, source: 'honey' }), 'volumeL');
@@ -149,9 +145,17 @@ describe('fermentable input checks', () => {
 
 describe('fermentable messages', () => {
   it('name the value and its unit', () => {
-    expectInputError(() => fermentableForGravity({ volumeL: -5, targetOg: 1.1, source: 'honey' }), 'volumeL', 'Must volume cannot be negative (got -5 L).');
+    expectInputError(
+      () => fermentableForGravity({ volumeL: -5, targetOg: 1.1, source: 'honey' }),
+      'volumeL',
+      'Must volume cannot be negative (got -5 L).',
+    );
     expectInputError(() => gravityFromFermentable({ volumeL: -1, kg: 1, source: 'honey' }), 'volumeL', 'Must volume cannot be negative (got -1 L).');
-    expectInputError(() => gravityFromFermentable({ volumeL: 0, kg: 1, source: 'honey' }), 'volumeL', 'Must volume must be more than zero (got 0 L).');
+    expectInputError(
+      () => gravityFromFermentable({ volumeL: 0, kg: 1, source: 'honey' }),
+      'volumeL',
+      'Must volume must be more than zero (got 0 L).',
+    );
     expectInputError(() => gravityFromFermentable({ volumeL: 4, kg: -1, source: 'honey' }), 'kg', 'Amount added cannot be negative (got -1 kg).');
     expectInputError(
       () => gravityFromFermentable({ volumeL: 4, kg: 1, startOg: 0.9, source: 'honey' }),
@@ -168,7 +172,11 @@ describe('fermentable messages', () => {
       'kg',
       'That much sucrose would take the must above 1.200, beyond what yeast can ferment.',
     );
-    expectInputError(() => fermentableForGravity({ volumeL: 5, targetOg: 1.1, source: 'maple' as never }), 'source', "Fermentable must be one of 'honey', 'sucrose' (got 'maple').");
+    expectInputError(
+      () => fermentableForGravity({ volumeL: 5, targetOg: 1.1, source: 'maple' as never }),
+      'source',
+      "Fermentable must be one of 'honey', 'sucrose' (got 'maple').",
+    );
   });
 
   it('reaches the highest gravity accepted, and no further', () => {

@@ -59,7 +59,10 @@ describe('active and slowing', () => {
   it('measures the rate over at least a day, counting a reading exactly a day old', () => {
     expect(state(1.05, 14, [on(0, 1.05), on(2, 1.049)], 2)).toBe('slowing');
     expect(state(1.05, 14, [on(0, 1.05), on(1, 1.0495)], 1)).toBe('slowing');
-    const hoursApart = [{ at: new Date(START), sg: 1.05 }, { at: new Date(START + 20 * HOUR), sg: 1.0499 }];
+    const hoursApart = [
+      { at: new Date(START), sg: 1.05 },
+      { at: new Date(START + 20 * HOUR), sg: 1.0499 },
+    ];
     expect(state(1.05, 14, hoursApart, 1)).toBe('active');
   });
 
@@ -135,9 +138,7 @@ describe('stuck or finished, at several gravities and tolerances', () => {
   it('never calls a steady ferment finished while it is well above the dry end and more than a point short', () => {
     const steadyShort = fc
       .record({ og: fc.double({ min: 1.03, max: 1.16, noNaN: true }), tol: fc.double({ min: 6, max: 20, noNaN: true }) })
-      .chain(({ og, tol }) =>
-        fc.record({ og: fc.constant(og), tol: fc.constant(tol), sg: fc.double({ min: 1.0045, max: og, noNaN: true }) }),
-      )
+      .chain(({ og, tol }) => fc.record({ og: fc.constant(og), tol: fc.constant(tol), sg: fc.double({ min: 1.0045, max: og, noNaN: true }) }))
       .filter(({ og, tol, sg }) => linearReferenceAbv(og, sg) < tol - 1.05);
     fc.assert(
       fc.property(steadyShort, ({ og, tol, sg }) => {
@@ -166,14 +167,19 @@ describe('order of the readings', () => {
   it('gives the same state for any order of the same readings, timestamps shared or not', () => {
     const reading = fc.record({ day: fc.integer({ min: 0, max: 12 }), sg: fc.integer({ min: 990, max: 1120 }) });
     fc.assert(
-      fc.property(fc.array(reading, { maxLength: 8 }), fc.integer({ min: 1000, max: 1120 }), fc.integer({ min: 0, max: 20 }), (rows, ogPoints, tol) => {
-        const readings = rows.map((r) => on(r.day, r.sg / 1000));
-        const og = ogPoints / 1000;
-        const expected = state(og, tol, readings, 12);
-        expect(state(og, tol, [...readings].reverse(), 12)).toBe(expected);
-        const rotated = readings.length ? [...readings.slice(1), readings[0]] : readings;
-        expect(state(og, tol, rotated, 12)).toBe(expected);
-      }),
+      fc.property(
+        fc.array(reading, { maxLength: 8 }),
+        fc.integer({ min: 1000, max: 1120 }),
+        fc.integer({ min: 0, max: 20 }),
+        (rows, ogPoints, tol) => {
+          const readings = rows.map((r) => on(r.day, r.sg / 1000));
+          const og = ogPoints / 1000;
+          const expected = state(og, tol, readings, 12);
+          expect(state(og, tol, [...readings].reverse(), 12)).toBe(expected);
+          const rotated = readings.length ? [...readings.slice(1), readings[0]] : readings;
+          expect(state(og, tol, rotated, 12)).toBe(expected);
+        },
+      ),
     );
   });
 });
@@ -188,7 +194,11 @@ describe('fermentationState input checks', () => {
       "Date of reading 1 must be a valid date (got 'not a date').",
     );
     expectInputError(() => fermentationState({ ...base, readings: [on(0, Number.NaN)] }), 'readings[0].sg');
-    expectInputError(() => fermentationState({ ...base, readings: [null as never] }), 'readings[0]', 'Reading 1 must be an entry with a date and a gravity.');
+    expectInputError(
+      () => fermentationState({ ...base, readings: [null as never] }),
+      'readings[0]',
+      'Reading 1 must be an entry with a date and a gravity.',
+    );
     expectInputError(() => fermentationState({ ...base, readings: [7 as never] }), 'readings[0]');
     expectInputError(() => fermentationState({ ...base, readings: 'x' as never }), 'readings', 'Readings must be a list of { at, sg } entries.');
   });

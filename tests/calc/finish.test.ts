@@ -1,5 +1,16 @@
 import { describe, it, expect } from 'vitest';
-import { predictFinish, fgAtAbv, sweetnessOf, strengthOf, DRY_FINISH_SG, MAX_TOLERANCE_ABV, SEMI_SWEET_FROM_FG, SWEET_FROM_FG, STANDARD_FROM_ABV, SACK_FROM_ABV } from '../../shared/calc';
+import {
+  predictFinish,
+  fgAtAbv,
+  sweetnessOf,
+  strengthOf,
+  DRY_FINISH_SG,
+  MAX_TOLERANCE_ABV,
+  SEMI_SWEET_FROM_FG,
+  SWEET_FROM_FG,
+  STANDARD_FROM_ABV,
+  SACK_FROM_ABV,
+} from '../../shared/calc';
 import { ballingReferenceFg } from './reference-abv';
 import { expectInputError } from './expect-input-error';
 

@@ -82,7 +82,11 @@ describe('requireRange', () => {
   });
 
   it('prints the limits and the value with the decimals and unit asked for', () => {
-    expectInputError(() => requireRange(41, 'sampleC', 'Sample temperature', 0, 40, 0, ' °C'), 'sampleC', 'Sample temperature must be between 0 and 40 °C (got 41 °C).');
+    expectInputError(
+      () => requireRange(41, 'sampleC', 'Sample temperature', 0, 40, 0, ' °C'),
+      'sampleC',
+      'Sample temperature must be between 0 and 40 °C (got 41 °C).',
+    );
     expectInputError(() => requireRange(-0.5, 'x', 'Share', 0, 0.5, 2), 'x', 'Share must be between 0.00 and 0.50 (got -0.50).');
     expectInputError(() => requireRange(Number.NaN, 'x', 'Share', 0, 1), 'x', 'Share must be a number (got NaN).');
   });
@@ -171,6 +175,10 @@ describe('requireOneOf', () => {
       'system',
       "Unit system must be one of 'metric', 'us' (got 'imperial').",
     );
-    expectInputError(() => requireOneOf(3, ['metric', 'us'] as const, 'system', 'Unit system'), 'system', "Unit system must be one of 'metric', 'us' (got 3).");
+    expectInputError(
+      () => requireOneOf(3, ['metric', 'us'] as const, 'system', 'Unit system'),
+      'system',
+      "Unit system must be one of 'metric', 'us' (got 3).",
+    );
   });
 });

@@ -71,9 +71,7 @@ describe('the library’s public face', () => {
     expect(entry, `FORMULA_SOURCES.${name}`).toBeDefined();
     expect(entry.name.length).toBeGreaterThan(5);
     expect(entry.source.length).toBeGreaterThan(5);
-    expect(['published formula', 'published table', 'standard', 'regulation', 'definition', 'common practice']).toContain(
-      entry.basis,
-    );
+    expect(['published formula', 'published table', 'standard', 'regulation', 'definition', 'common practice']).toContain(entry.basis);
     for (const key of entry.cautions) expect(Object.keys(CAUTIONS)).toContain(key);
   });
 
@@ -149,7 +147,16 @@ describe('the library’s public face', () => {
     expect(calc.CAUTION_GLASS).toMatch(/neck/i);
     expect(calc.CAUTION_SANITISER).toMatch(/dilution/i);
     expect(calc.CAUTION_SPICE_IN_PRIMARY).toMatch(/secondary/i);
-    expect(Object.keys(CAUTIONS)).toEqual(['estimate', 'sulfites', 'sorbate', 'bottlePressure', 'legalLimits', 'glass', 'sanitiser', 'spiceInPrimary']);
+    expect(Object.keys(CAUTIONS)).toEqual([
+      'estimate',
+      'sulfites',
+      'sorbate',
+      'bottlePressure',
+      'legalLimits',
+      'glass',
+      'sanitiser',
+      'spiceInPrimary',
+    ]);
   });
 });
 
@@ -176,8 +183,18 @@ const CALLS: Call[] = [
   ['gravityFromFermentable', 'volumeL', (x) => calc.gravityFromFermentable({ volumeL: b(x), kg: 1, source: 'honey' })],
   ['gravityFromFermentable', 'kg', (x) => calc.gravityFromFermentable({ volumeL: 10, kg: b(x), source: 'honey' })],
   ['gravityFromFermentable', 'startOg', (x) => calc.gravityFromFermentable({ volumeL: 10, kg: 1, startOg: b(x), source: 'honey' }), 'optional'],
-  ['gravityFromFermentable', 'honeyMoisturePercent', (x) => calc.gravityFromFermentable({ volumeL: 10, kg: 1, source: 'honey', honeyMoisturePercent: b(x) }), 'optional'],
-  ['fermentableForGravity', 'honeyMoisturePercent', (x) => calc.fermentableForGravity({ volumeL: 5, targetOg: 1.1, source: 'honey', honeyMoisturePercent: b(x) }), 'optional'],
+  [
+    'gravityFromFermentable',
+    'honeyMoisturePercent',
+    (x) => calc.gravityFromFermentable({ volumeL: 10, kg: 1, source: 'honey', honeyMoisturePercent: b(x) }),
+    'optional',
+  ],
+  [
+    'fermentableForGravity',
+    'honeyMoisturePercent',
+    (x) => calc.fermentableForGravity({ volumeL: 5, targetOg: 1.1, source: 'honey', honeyMoisturePercent: b(x) }),
+    'optional',
+  ],
   ['predictFinish', 'dryFg', (x) => calc.predictFinish({ og: 1.1, toleranceAbv: 14, dryFg: b(x) }), 'optional'],
   ['fermentationState', 'toleranceAbv', (x) => calc.fermentationState({ og: 1.1, toleranceAbv: b(x), readings: [], now: new Date() })],
   ['freeSo2Needed', 'pH', (x) => calc.freeSo2Needed(b(x))],
@@ -203,7 +220,11 @@ const CALLS: Call[] = [
   ['sweetnessOf', 'fg', (x) => calc.sweetnessOf(b(x))],
   ['strengthOf', 'abv', (x) => calc.strengthOf(b(x))],
   ['fermentationState', 'og', (x) => calc.fermentationState({ og: b(x), toleranceAbv: 14, readings: [], now: new Date() })],
-  ['fermentationState', 'readings[0].sg', (x) => calc.fermentationState({ og: 1.1, toleranceAbv: 14, readings: [{ at: new Date(0), sg: b(x) }], now: new Date() })],
+  [
+    'fermentationState',
+    'readings[0].sg',
+    (x) => calc.fermentationState({ og: 1.1, toleranceAbv: 14, readings: [{ at: new Date(0), sg: b(x) }], now: new Date() }),
+  ],
   ['metabisulfiteGrams', 'volumeL', (x) => calc.metabisulfiteGrams({ volumeL: b(x), pH: 3.4 })],
   ['metabisulfiteGrams', 'pH', (x) => calc.metabisulfiteGrams({ volumeL: 10, pH: b(x) })],
   ['metabisulfiteGrams', 'molecularSo2', (x) => calc.metabisulfiteGrams({ volumeL: 10, pH: 3.4, molecularSo2: b(x) }), 'optional'],
@@ -313,9 +334,7 @@ describe('never Infinity from finite but huge input', () => {
     expect(() => calc.kilogramsTo(1e308, 'g')).toThrow('Mass is too large to work with.');
     expect(() => calc.fahrenheitFrom(1e308)).toThrow('Temperature is too large to work with.');
     expect(() => calc.annualVolumeUsage({ volumesL: [1e308, 1e308], limitL: 100 })).toThrow('Total volume is too large to work with.');
-    expect(() => calc.annualVolumeUsage({ volumesL: [1e10], limitL: 1e-300 })).toThrow(
-      'Yearly limit (1e-300 L) is too small to measure a share of.',
-    );
+    expect(() => calc.annualVolumeUsage({ volumesL: [1e10], limitL: 1e-300 })).toThrow('Yearly limit (1e-300 L) is too small to measure a share of.');
     expect(() => calc.addMonths('+275759-06-15', 18)).toThrow('18 months after +275759-06-15 is past the last date that can be kept (year 275760).');
   });
 

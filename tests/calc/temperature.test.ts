@@ -26,14 +26,11 @@ const CRC_WATER: Record<number, number> = {
 };
 
 describe('density of water (Tanaka et al., Metrologia 38 (2001) 301)', () => {
-  it.each(Object.entries(CRC_WATER).map(([t, d]) => [Number(t), d]))(
-    'at %s °C matches the CRC table (%s g/cm³)',
-    (t, d) => {
-      // The CRC table is Kell's air-free water to 5 decimals; the Tanaka formula
-      // (SMOW) agrees with it within 0.01 kg/m³ over 0–40 °C.
-      expect(Math.abs(waterDensity(t) - d * 1000)).toBeLessThan(0.01);
-    },
-  );
+  it.each(Object.entries(CRC_WATER).map(([t, d]) => [Number(t), d]))('at %s °C matches the CRC table (%s g/cm³)', (t, d) => {
+    // The CRC table is Kell's air-free water to 5 decimals; the Tanaka formula
+    // (SMOW) agrees with it within 0.01 kg/m³ over 0–40 °C.
+    expect(Math.abs(waterDensity(t) - d * 1000)).toBeLessThan(0.01);
+  });
 
   it('is densest near 4 °C', () => {
     expect(waterDensity(4)).toBeGreaterThan(waterDensity(3));
@@ -74,8 +71,7 @@ describe('hydrometer correction, calibration 15 °C (59 °F)', () => {
 //        + 0.00000204052596 T² − 0.00000000232820948 T³
 // It is a fit to the specific volume of water, independent of the formula in the code.
 function publishedCorrection(mg: number, readingF: number, calibrationF: number): number {
-  const f = (t: number) =>
-    1.00130346 - 0.000134722124 * t + 0.00000204052596 * t ** 2 - 0.00000000232820948 * t ** 3;
+  const f = (t: number) => 1.00130346 - 0.000134722124 * t + 0.00000204052596 * t ** 2 - 0.00000000232820948 * t ** 3;
   return (mg * f(readingF)) / f(calibrationF);
 }
 

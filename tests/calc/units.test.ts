@@ -142,7 +142,11 @@ describe('unit conversion messages', () => {
     expectInputError(() => litresTo(-1, 'L'), 'litres', 'Volume cannot be negative (got -1 L).');
     expectInputError(() => kilogramsTo(-2, 'kg'), 'kilograms', 'Mass cannot be negative (got -2 kg).');
     expectInputError(() => kilogramsFrom(-2, 'kg'), 'value', 'Mass cannot be negative (got -2).');
-    expectInputError(() => litresTo(1, 'barrel' as never), 'unit', "Volume unit must be one of 'L', 'mL', 'US gal', 'imp gal', 'US fl oz' (got 'barrel').");
+    expectInputError(
+      () => litresTo(1, 'barrel' as never),
+      'unit',
+      "Volume unit must be one of 'L', 'mL', 'US gal', 'imp gal', 'US fl oz' (got 'barrel').",
+    );
     expectInputError(() => litresFrom(1, 'barrel' as never), 'unit', /^Volume unit must be one of/);
     expectInputError(() => kilogramsTo(1, 'stone' as never), 'unit', "Mass unit must be one of 'kg', 'g', 'lb', 'oz' (got 'stone').");
     expectInputError(() => kilogramsFrom(1, 'stone' as never), 'unit', /^Mass unit must be one of/);

@@ -26,11 +26,7 @@ describe('headspace — capacity minus volume (definition)', () => {
   });
 
   it('rejects a volume the vessel cannot hold', () => {
-    expectInputError(
-      () => headspace({ capacityL: 23, volumeL: 25 }),
-      'volumeL',
-      'Volume (25 L) is more than the vessel holds (23 L).',
-    );
+    expectInputError(() => headspace({ capacityL: 23, volumeL: 25 }), 'volumeL', 'Volume (25 L) is more than the vessel holds (23 L).');
     expectInputError(() => headspace({ capacityL: 0, volumeL: 0 }), 'capacityL');
     expectInputError(() => headspace({ capacityL: 23, volumeL: -1 }), 'volumeL');
     expectInputError(() => headspace({ capacityL: Number.NaN, volumeL: 1 }), 'capacityL');
@@ -141,7 +137,14 @@ describe('bestVesselForRacking', () => {
     expectInputError(() => bestVesselForRacking({ volumeL: -1, candidates: free }), 'volumeL');
     expectInputError(() => bestVesselForRacking({ volumeL: 5, candidates: free, lossL: 6 }), 'lossL');
     expectInputError(
-      () => bestVesselForRacking({ volumeL: 5, candidates: [{ id: 'a', capacityL: 10 }, { id: 'b', capacityL: -2 }] }),
+      () =>
+        bestVesselForRacking({
+          volumeL: 5,
+          candidates: [
+            { id: 'a', capacityL: 10 },
+            { id: 'b', capacityL: -2 },
+          ],
+        }),
       'candidates[1].capacityL',
     );
     expectInputError(() => bestVesselForRacking({ volumeL: 5, candidates: [{ id: 'a', capacityL: Number.NaN }] }), 'candidates[0].capacityL');
@@ -218,7 +221,14 @@ describe('vessel and bottle messages name the value and its unit', () => {
       'Expected loss (6 L) cannot be more than the volume racked (5 L).',
     );
     expectInputError(
-      () => bestVesselForRacking({ volumeL: 5, candidates: [{ id: 'a', capacityL: 10 }, { id: 'b', capacityL: 0 }] }),
+      () =>
+        bestVesselForRacking({
+          volumeL: 5,
+          candidates: [
+            { id: 'a', capacityL: 10 },
+            { id: 'b', capacityL: 0 },
+          ],
+        }),
       'candidates[1].capacityL',
       'Capacity of candidate 2 must be more than zero (got 0 L).',
     );
@@ -234,7 +244,11 @@ describe('vessel and bottle messages name the value and its unit', () => {
       'Candidate 2 must be a vessel with a capacity.',
     );
     expectInputError(() => bestVesselForRacking({ volumeL: 5, candidates: ['x' as never] }), 'candidates[0]');
-    expectInputError(() => bestVesselForRacking({ volumeL: 5, candidates: null as never }), 'candidates', 'Candidates must be a list of vessels with a capacity.');
+    expectInputError(
+      () => bestVesselForRacking({ volumeL: 5, candidates: null as never }),
+      'candidates',
+      'Candidates must be a list of vessels with a capacity.',
+    );
   });
 
   it('accepts a loss as large as the whole volume', () => {

@@ -22,6 +22,10 @@ describe('the correction form’s fields', () => {
     expect(reading.safeParse({ sg: 1.5 }).error?.issues.map((i) => i.message)).toEqual(['a gravity is at most 1.200']);
     // Clearing an optional figure is a correction too.
     expect(reading.safeParse({ temperatureC: null }).success).toBe(true);
-    expect(changesSchemaFor('note').safeParse({ text: '  ' }).error?.issues.map((i) => i.message)).toEqual(['write something']);
+    expect(
+      changesSchemaFor('note')
+        .safeParse({ text: '  ' })
+        .error?.issues.map((i) => i.message),
+    ).toEqual(['write something']);
   });
 });

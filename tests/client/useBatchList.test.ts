@@ -11,7 +11,18 @@ const batchesPath = `/api/cellars/${CELLAR_ID}/batches`;
 
 describe('the Batches list filters in the URL', () => {
   it('reads each filter from the query and falls back to the default for anything malformed', () => {
-    expect(filtersFromQuery({ q: 'oak', stage: 'secondary', kind: 'cyser', agedMonths: '6', needsRacking: 'true', sort: 'name', page: '2', pageSize: '50' })).toEqual({
+    expect(
+      filtersFromQuery({
+        q: 'oak',
+        stage: 'secondary',
+        kind: 'cyser',
+        agedMonths: '6',
+        needsRacking: 'true',
+        sort: 'name',
+        page: '2',
+        pageSize: '50',
+      }),
+    ).toEqual({
       q: 'oak',
       stage: 'secondary',
       kind: 'cyser',
@@ -21,7 +32,9 @@ describe('the Batches list filters in the URL', () => {
       page: 2,
       pageSize: 50,
     });
-    expect(filtersFromQuery({ stage: 'fizzy', kind: 'lager', agedMonths: '1.5', needsRacking: 'yes', sort: 'random', page: '0', pageSize: '500' })).toEqual({
+    expect(
+      filtersFromQuery({ stage: 'fizzy', kind: 'lager', agedMonths: '1.5', needsRacking: 'yes', sort: 'random', page: '0', pageSize: '500' }),
+    ).toEqual({
       q: '',
       stage: null,
       kind: null,
@@ -35,7 +48,11 @@ describe('the Batches list filters in the URL', () => {
 
   it('leaves defaults out of the URL and trims the search', () => {
     expect(queryFromFilters(filtersFromQuery({}))).toEqual({});
-    expect(queryFromFilters({ ...filtersFromQuery({}), q: '  bramble ', kind: 'melomel', page: 3 })).toEqual({ q: 'bramble', kind: 'melomel', page: '3' });
+    expect(queryFromFilters({ ...filtersFromQuery({}), q: '  bramble ', kind: 'melomel', page: 3 })).toEqual({
+      q: 'bramble',
+      kind: 'melomel',
+      page: '3',
+    });
   });
 });
 

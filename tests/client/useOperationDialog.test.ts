@@ -90,7 +90,9 @@ describe('useOperationDialog: checking before sending', () => {
   });
 
   it('shows the dialog’s own rule’s message when `check` refuses, and sends nothing', async () => {
-    const { api, dialog } = await mountDialog<{ text: string }>({ check: (request) => (request.text.includes('bubbling') ? { text: 'Say more.' } : null) });
+    const { api, dialog } = await mountDialog<{ text: string }>({
+      check: (request) => (request.text.includes('bubbling') ? { text: 'Say more.' } : null),
+    });
     await dialog().submit();
     expect(dialog().errors).toEqual({ text: 'Say more.' });
     expect(api.callsTo('POST', notesPath)).toHaveLength(0);
@@ -136,7 +138,9 @@ describe('useOperationDialog: sending', () => {
   });
 
   it('builds the success message from the result and the request when given a function', async () => {
-    const { dialog } = await mountDialog<{ text: string }>({ success: (result, request) => `${result.batch.name}: ${request.text.length} characters noted.` });
+    const { dialog } = await mountDialog<{ text: string }>({
+      success: (result, request) => `${result.batch.name}: ${request.text.length} characters noted.`,
+    });
     const shown = await notificationsFrom(() => dialog().submit());
     expect(shown).toEqual(['Hedgerow melomel: 35 characters noted.']);
   });
@@ -170,17 +174,27 @@ describe('useOperationDialog: when the server refuses', () => {
   it('reports an answer that does not match the shared schema as not understood', async () => {
     const { wrapper, dialog } = await mountDialog({}, { answer: { status: 201, body: { batch: null } } });
     await dialog().submit();
-    expect(dialog().failure.value).toMatchObject({ status: 0, code: 'unexpected', message: 'The answer from the server was not understood. Reload and try again.' });
+    expect(dialog().failure.value).toMatchObject({
+      status: 0,
+      code: 'unexpected',
+      message: 'The answer from the server was not understood. Reload and try again.',
+    });
     expect(wrapper.emitted()).not.toHaveProperty('done');
   });
 
   it('hands every outcome to afterSend: the failure, then null once it went through', async () => {
     const outcomes: (ApiError | null)[] = [];
-    const { api, dialog } = await mountDialog({ afterSend: (failure) => outcomes.push(failure) }, { answer: { status: 409, body: { error: 'conflict', message: 'Carboy 3 changed meanwhile.' } } });
+    const { api, dialog } = await mountDialog(
+      { afterSend: (failure) => outcomes.push(failure) },
+      { answer: { status: 409, body: { error: 'conflict', message: 'Carboy 3 changed meanwhile.' } } },
+    );
     await dialog().submit();
     api.on('POST', notesPath, { status: 201, body: operationResult() });
     await dialog().submit();
-    expect(outcomes.map((o) => o && { status: o.status, message: o.message })).toEqual([{ status: 409, message: 'Carboy 3 changed meanwhile.' }, null]);
+    expect(outcomes.map((o) => o && { status: o.status, message: o.message })).toEqual([
+      { status: 409, message: 'Carboy 3 changed meanwhile.' },
+      null,
+    ]);
   });
 });
 

@@ -19,7 +19,9 @@ describeInBrowser('Batch page: bottling into cases, in Chromium', (env) => {
     const signIn = await api.post('/api/auth/sign-in').send({ email: crew.hand.email, password: TEST_PASSWORD });
     expect(signIn.status).toBe(200);
     const base = `/api/cellars/${crew.cellar.id}`;
-    const vessel = await api.post(`${base}/vessels`).send({ name: 'Carboy 23', kind: 'carboy', material: 'glass', capacityL: 23, state: 'sanitised' });
+    const vessel = await api
+      .post(`${base}/vessels`)
+      .send({ name: 'Carboy 23', kind: 'carboy', material: 'glass', capacityL: 23, state: 'sanitised' });
     expect(vessel.status, JSON.stringify(vessel.body)).toBe(201);
     // An OG and no readings: the server cannot call it finished, so it asks for confirmation.
     const started = await api.post(`${base}/batches`).send({

@@ -141,6 +141,11 @@ export async function batchInVessels(
 ): Promise<{ result: OperationResult; vessels: Vessel[] }> {
   const vessels: Vessel[] = [];
   for (const _ of volumes) vessels.push(await sanitisedVessel(ds, crew.cellar.id, seed));
-  const result = await startThroughApi(crew.as.hand, crew.batches, vessels.map((vessel, i) => ({ vessel, volumeL: volumes[i] })), overrides);
+  const result = await startThroughApi(
+    crew.as.hand,
+    crew.batches,
+    vessels.map((vessel, i) => ({ vessel, volumeL: volumes[i] })),
+    overrides,
+  );
   return { result, vessels };
 }

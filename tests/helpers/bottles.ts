@@ -20,7 +20,15 @@ export async function makeLotWithCases(
   ds: DataSource,
   cellarId: string,
   batch: Batch,
-  seed: { cases?: number; perCase?: number; bottleMl?: number; sulfiteAdded?: boolean; abvEstimate?: number | null; note?: string; bottledOn?: string } = {},
+  seed: {
+    cases?: number;
+    perCase?: number;
+    bottleMl?: number;
+    sulfiteAdded?: boolean;
+    abvEstimate?: number | null;
+    note?: string;
+    bottledOn?: string;
+  } = {},
 ): Promise<{ lot: BottleLotRow; cases: BottleCaseRow[] }> {
   const caseCount = seed.cases ?? 2;
   const perCase = seed.perCase ?? 12;

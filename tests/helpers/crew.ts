@@ -25,7 +25,9 @@ export type Agent = Awaited<ReturnType<typeof signedInAgent>>;
 export async function makeUser(ds: DataSource, name = 'Test Person'): Promise<User> {
   hash ??= hashPassword(TEST_PASSWORD);
   const repo = ds.getRepository(User);
-  return repo.save(repo.create({ email: `${name.toLowerCase().replace(/\W+/g, '.')}.${unique()}@example.test`, displayName: name, passwordHash: await hash }));
+  return repo.save(
+    repo.create({ email: `${name.toLowerCase().replace(/\W+/g, '.')}.${unique()}@example.test`, displayName: name, passwordHash: await hash }),
+  );
 }
 
 export interface CellarCrew {
@@ -39,7 +41,11 @@ export interface CellarCrew {
 export async function makeCellarWithCrew(ds: DataSource, name = `Test cellar ${unique()}`): Promise<CellarCrew> {
   const cellar = await ds.getRepository(Cellar).save(ds.getRepository(Cellar).create({ name }));
   const [keeper, hand, guest] = await Promise.all([makeUser(ds, 'Kay Keeper'), makeUser(ds, 'Hal Hand'), makeUser(ds, 'Gil Guest')]);
-  const members: [User, Role][] = [[keeper, 'keeper'], [hand, 'hand'], [guest, 'guest']];
+  const members: [User, Role][] = [
+    [keeper, 'keeper'],
+    [hand, 'hand'],
+    [guest, 'guest'],
+  ];
   await ds.getRepository(Membership).save(members.map(([u, role]) => ({ cellarId: cellar.id, userId: u.id, role })));
   return { cellar, keeper, hand, guest };
 }

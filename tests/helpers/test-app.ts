@@ -41,7 +41,11 @@ export async function signedInAgent(app: Express, email: string, password: strin
 }
 
 /** Signed-in agents for the Keeper, Hand and Guest of a crew (see crew.ts). */
-export async function agentsFor(app: Express, crew: { keeper: { email: string }; hand: { email: string }; guest: { email: string } }, password: string) {
+export async function agentsFor(
+  app: Express,
+  crew: { keeper: { email: string }; hand: { email: string }; guest: { email: string } },
+  password: string,
+) {
   const [keeper, hand, guest] = await Promise.all([
     signedInAgent(app, crew.keeper.email, password),
     signedInAgent(app, crew.hand.email, password),

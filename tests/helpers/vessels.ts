@@ -77,10 +77,11 @@ export async function sanitisedDaysAgo(ds: DataSource, vesselId: string, days: n
 
 /** Puts a batch into a vessel, as a start or racking would (bumping its version). */
 export async function fillVessel(ds: DataSource, vesselId: string, batchId: string, volumeL: number): Promise<void> {
-  await ds.query(
-    `UPDATE vessels SET batch_id = $2, volume_l = $3, filled_at = now(), version = version + 1, updated_at = now() WHERE id = $1`,
-    [vesselId, batchId, volumeL],
-  );
+  await ds.query(`UPDATE vessels SET batch_id = $2, volume_l = $3, filled_at = now(), version = version + 1, updated_at = now() WHERE id = $1`, [
+    vesselId,
+    batchId,
+    volumeL,
+  ]);
 }
 
 /** Reads a vessel row as the database has it now. */
@@ -89,5 +90,12 @@ export async function vesselRow(ds: DataSource, vesselId: string) {
     `SELECT batch_id, volume_l::float8 AS volume_l, filled_at, cleaning_state, sanitised_at, version FROM vessels WHERE id = $1`,
     [vesselId],
   );
-  return row as { batch_id: string | null; volume_l: number | null; filled_at: Date | null; cleaning_state: string; sanitised_at: Date | null; version: number };
+  return row as {
+    batch_id: string | null;
+    volume_l: number | null;
+    filled_at: Date | null;
+    cleaning_state: string;
+    sanitised_at: Date | null;
+    version: number;
+  };
 }

@@ -15,7 +15,11 @@ const { context, close } = await launchBrowser();
 fs.mkdirSync(outDir, { recursive: true });
 try {
   const page = await context.newPage();
-  for (const [label, width, height] of [['phone-360', 360, 760], ['phone', 390, 844], ['desktop', 1280, 860]] as const) {
+  for (const [label, width, height] of [
+    ['phone-360', 360, 760],
+    ['phone', 390, 844],
+    ['desktop', 1280, 860],
+  ] as const) {
     await page.setViewportSize({ width, height });
     await page.goto(`${baseUrl}/sign-in`);
     await page.screenshot({ path: path.join(outDir, `sign-in-${label}.png`) });
@@ -28,7 +32,10 @@ try {
       await page.goto(`${baseUrl}${p.replace('{cellar}', cellarId)}`);
       await page.waitForLoadState('networkidle');
       await page.waitForTimeout(400);
-      const name = p.replace('{cellar}', 'c').replace(/[^a-z0-9]+/gi, '-').replace(/^-|-$/g, '');
+      const name = p
+        .replace('{cellar}', 'c')
+        .replace(/[^a-z0-9]+/gi, '-')
+        .replace(/^-|-$/g, '');
       await page.screenshot({ path: path.join(outDir, `${name}-${label}.png`), fullPage: true });
     }
     await context.clearCookies();

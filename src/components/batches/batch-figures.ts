@@ -73,7 +73,13 @@ export function batchFigures(
   const topUps = topUpEvents(batch.journal ?? []);
   const mixed =
     batch.og !== null && topUps.length
-      ? maybe(() => figuresAfterTopUps(batch.og as number, batch.readings.map((r) => ({ at: r.at, sg: r.correctedSg })), topUps))
+      ? maybe(() =>
+          figuresAfterTopUps(
+            batch.og as number,
+            batch.readings.map((r) => ({ at: r.at, sg: r.correctedSg })),
+            topUps,
+          ),
+        )
       : null;
   const og = mixed?.og ?? batch.og;
   const currentSg = mixed ? mixed.currentSg : (last?.correctedSg ?? null);

@@ -1,10 +1,4 @@
-import {
-  formatMass,
-  type AbvFormula,
-  type Strength,
-  type Sweetness,
-  type UnitSystem,
-} from '@shared/calc';
+import { formatMass, type AbvFormula, type Strength, type Sweetness, type UnitSystem } from '@shared/calc';
 import { FERMENTATION_WORDS } from '@/components/batches/fermentation-words';
 import { formatDateInStyle } from '@/composables/date-style';
 import { usePreferencesStore } from '@/stores/preferences';

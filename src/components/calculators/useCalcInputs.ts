@@ -156,7 +156,10 @@ export function useQuantityListInput(quantity: Quantity, defaults: Record<UnitSy
   const text: Ref<string> = ref(defaults[system.value]);
   watch(system, (next, prev) => {
     if (text.value.trim() === defaults[prev]) text.value = defaults[next];
-    else text.value = listItems(text.value).map((item) => convertText(item, quantity, prev, next)).join(', ');
+    else
+      text.value = listItems(text.value)
+        .map((item) => convertText(item, quantity, prev, next))
+        .join(', ');
   });
   const suffix = computed(() => unitLabel(quantity, system.value));
   /**

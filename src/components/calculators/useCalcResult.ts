@@ -10,10 +10,7 @@ export class EmptyField extends Error {
 }
 
 /** What a calculator shows: a hint (something is empty), a result, or the library's complaint. */
-export type CalcOutcome<T> =
-  | { status: 'empty' }
-  | { status: 'ok'; value: T }
-  | { status: 'error'; field: string; message: string };
+export type CalcOutcome<T> = { status: 'empty' } | { status: 'ok'; value: T } | { status: 'error'; field: string; message: string };
 
 /** Library argument names (e.g. `og`, `readings[2].sg`) that belong to each field of a form. */
 export type FieldMap<K extends string> = Record<K, readonly string[]>;

@@ -13,8 +13,7 @@ export interface LabelSelectionState {
 }
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-const list = (value: unknown) =>
-  (typeof value === 'string' ? value.split(',') : []).map((s) => s.trim()).filter((s) => UUID.test(s));
+const list = (value: unknown) => (typeof value === 'string' ? value.split(',') : []).map((s) => s.trim()).filter((s) => UUID.test(s));
 const one = (value: unknown) => (typeof value === 'string' && UUID.test(value) ? value : null);
 
 function fromQuery(q: LocationQuery): LabelSelectionState {
@@ -58,7 +57,8 @@ export function useLabelSelection() {
   );
 
   const isEmpty = computed(
-    () => !selection.vessels.length && !selection.cases.length && !selection.lots.length && !selection.lotCases && !selection.shelf && !selection.batch,
+    () =>
+      !selection.vessels.length && !selection.cases.length && !selection.lots.length && !selection.lotCases && !selection.shelf && !selection.batch,
   );
 
   function clear(): void {

@@ -22,8 +22,19 @@ import {
 const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')}`;
 const at = (hhmm: string) => `2026-03-14T${hhmm}:00.000Z`;
 
-function entry(n: number, payload: JournalPayload, times: { occurred?: string | Date; recorded?: string | Date } = {}, amends: number | null = null): JournalRecord {
-  return { id: id(n), occurredAt: times.occurred ?? at('10:00'), recordedAt: times.recorded ?? at('10:00'), amendsEntryId: amends === null ? null : id(amends), payload };
+function entry(
+  n: number,
+  payload: JournalPayload,
+  times: { occurred?: string | Date; recorded?: string | Date } = {},
+  amends: number | null = null,
+): JournalRecord {
+  return {
+    id: id(n),
+    occurredAt: times.occurred ?? at('10:00'),
+    recordedAt: times.recorded ?? at('10:00'),
+    amendsEntryId: amends === null ? null : id(amends),
+    payload,
+  };
 }
 
 const readingPayload = (sg: number, extra: Partial<Extract<JournalPayload, { kind: 'reading' }>> = {}): JournalPayload => ({
@@ -183,17 +194,28 @@ describe('effectivePayload', () => {
   const other = entry(2, readingPayload(1.06));
 
   it('applies only the amendments of the given entry, the later recorded last', () => {
-    const journal = [reading, other, amendment(3, 1, { sg: 1.03 }, at('12:00')), amendment(4, 1, { sg: 1.02, ph: 3.6 }, at('11:00')), amendment(5, 2, { sg: 1.0 }, at('13:00'))];
+    const journal = [
+      reading,
+      other,
+      amendment(3, 1, { sg: 1.03 }, at('12:00')),
+      amendment(4, 1, { sg: 1.02, ph: 3.6 }, at('11:00')),
+      amendment(5, 2, { sg: 1.0 }, at('13:00')),
+    ];
     expect(effectivePayload(reading, journal)).toEqual(readingPayload(1.05, { sg: 1.03, ph: 3.6 }));
     expect(effectivePayload(other, journal)).toEqual(readingPayload(1.06, { sg: 1.0 }));
   });
 
   it('does not depend on the order of the journal', () => {
-    const journal = [reading, amendment(3, 1, { sg: 1.03 }, at('11:00')), amendment(4, 1, { sg: 1.02 }, at('11:00')), amendment(5, 1, { ph: 3.2 }, at('10:00'))];
+    const journal = [
+      reading,
+      amendment(3, 1, { sg: 1.03 }, at('11:00')),
+      amendment(4, 1, { sg: 1.02 }, at('11:00')),
+      amendment(5, 1, { ph: 3.2 }, at('10:00')),
+    ];
     for (const order of permutations(journal)) expect(effectivePayload(reading, order)).toEqual(readingPayload(1.05, { sg: 1.02, ph: 3.2 }));
   });
 
-  it('returns the entry\'s own payload when nothing amends it', () => {
+  it("returns the entry's own payload when nothing amends it", () => {
     expect(effectivePayload(reading, [reading, other, amendment(3, 2, { sg: 1.0 }, at('11:00'))])).toBe(reading.payload);
     expect(effectivePayload(reading, [])).toBe(reading.payload);
   });
@@ -270,12 +292,15 @@ describe('correctionSchema', () => {
     const parsed = correctionSchema(kind).safeParse(changes);
     return parsed.success ? [] : parsed.error.issues.map((i) => i.message);
   }
-  const parse = (kind: CorrectableKind, changes: Record<string, unknown>) => correctionSchema(kind).parse(changes) as z.infer<ReturnType<typeof correctionSchema>>;
+  const parse = (kind: CorrectableKind, changes: Record<string, unknown>) =>
+    correctionSchema(kind).parse(changes) as z.infer<ReturnType<typeof correctionSchema>>;
 
   // The first message is the one the API answers with (`message`), so it must name the field.
   it('refuses a field the kind does not have, naming it and the ones it has, first', () => {
     expect(refusal('reading', { colour: 'gold' })[0]).toBe('a reading has no field colour that can be corrected (only sg, temperatureC, ph)');
-    expect(refusal('tasted', { colour: 'gold' })[0]).toBe('a tasting has no field colour that can be corrected (only appearance, aroma, flavour, score)');
+    expect(refusal('tasted', { colour: 'gold' })[0]).toBe(
+      'a tasting has no field colour that can be corrected (only appearance, aroma, flavour, score)',
+    );
     expect(refusal('note', { author: 'someone' })[0]).toBe('a note has no field author that can be corrected (only text)');
   });
 
@@ -286,7 +311,9 @@ describe('correctionSchema', () => {
   });
 
   it('names every unknown field', () => {
-    expect(refusal('reading', { colour: 'gold', smell: 'pear' })[0]).toBe('a reading has no field colour, smell that can be corrected (only sg, temperatureC, ph)');
+    expect(refusal('reading', { colour: 'gold', smell: 'pear' })[0]).toBe(
+      'a reading has no field colour, smell that can be corrected (only sg, temperatureC, ph)',
+    );
   });
 
   it('refuses changes that are not an object without claiming an unknown field', () => {
@@ -298,7 +325,9 @@ describe('correctionSchema', () => {
   });
 
   it('refuses an unknown field even beside a good one', () => {
-    expect(refusal('reading', { sg: 1.01, colour: 'gold' })).toEqual(['a reading has no field colour that can be corrected (only sg, temperatureC, ph)']);
+    expect(refusal('reading', { sg: 1.01, colour: 'gold' })).toEqual([
+      'a reading has no field colour that can be corrected (only sg, temperatureC, ph)',
+    ]);
   });
 
   it('refuses empty changes, saying which fields could be corrected', () => {

@@ -221,7 +221,9 @@ const stepArb: fc.Arbitrary<Step> = fc.oneof(
 
 /** What a split or blend child starts with: stabilised only after a racking (see StageInheritance). */
 const inheritanceArb: fc.Arbitrary<StageInheritance | undefined> = fc.option(
-  fc.integer({ min: 0, max: 3 }).chain((rackings) => fc.record({ rackings: fc.constant(rackings), stabilised: rackings >= 1 ? fc.boolean() : fc.constant(false) })),
+  fc
+    .integer({ min: 0, max: 3 })
+    .chain((rackings) => fc.record({ rackings: fc.constant(rackings), stabilised: rackings >= 1 ? fc.boolean() : fc.constant(false) })),
   { nil: undefined },
 );
 

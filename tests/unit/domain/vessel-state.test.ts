@@ -21,7 +21,7 @@ describe('vesselState', () => {
     expect(vesselState(empty({ cleaningState: 'clean' }), 6, NOW)).toBe('clean');
   });
 
-  it('is sanitised while the sanitising is younger than the cellar\'s days', () => {
+  it("is sanitised while the sanitising is younger than the cellar's days", () => {
     expect(vesselState(empty({ cleaningState: 'sanitised', sanitisedAt: before(DAY_MS) }), 6, NOW)).toBe('sanitised');
   });
 
@@ -30,7 +30,7 @@ describe('vesselState', () => {
     expect(vesselState(empty({ cleaningState: 'sanitised', sanitisedAt: before(6 * DAY_MS + 1) }), 6, NOW)).toBe('clean');
   });
 
-  it('scales the lapse with the cellar\'s setting', () => {
+  it("scales the lapse with the cellar's setting", () => {
     const sanitisedAt = before(3 * DAY_MS + 1);
     expect(vesselState(empty({ cleaningState: 'sanitised', sanitisedAt }), 3, NOW)).toBe('clean');
     expect(vesselState(empty({ cleaningState: 'sanitised', sanitisedAt }), 4, NOW)).toBe('sanitised');
