@@ -29,6 +29,7 @@ import { CreateIdempotencyKeys1796170900000 } from './migrations/1796170900000-C
 import { TastingScoresOnOwnScale1796171100000 } from './migrations/1796171100000-TastingScoresOnOwnScale';
 import { ReadableDateWithoutSubtransaction1796171200000 } from './migrations/1796171200000-ReadableDateWithoutSubtransaction';
 import { IndexAdditionsAndRemovals1796171300000 } from './migrations/1796171300000-IndexAdditionsAndRemovals';
+import { AgeMilestoneTitles1796171400000 } from './migrations/1796171400000-AgeMilestoneTitles';
 
 /** Every entity, listed by hand (glob paths do not work under Vitest). */
 export const entities = [
@@ -67,4 +68,5 @@ export const migrations = [
   TastingScoresOnOwnScale1796171100000,
   ReadableDateWithoutSubtransaction1796171200000,
   IndexAdditionsAndRemovals1796171300000,
+  AgeMilestoneTitles1796171400000,
 ];

@@ -5,6 +5,7 @@ import { batchInVessels } from '../helpers/batches';
 import { crewWithAgents, type Crew } from '../helpers/crew';
 import { daysAgo } from '../helpers/dates';
 import { testApp } from '../helpers/test-app';
+import { AgeMilestoneTitles1796171400000 } from '../../server/db/migrations/1796171400000-AgeMilestoneTitles';
 
 /** Plans over HTTP: the default plans, a Keeper's edits (batches' tasks follow), assigning, bad input. */
 
@@ -53,6 +54,49 @@ describe('the default plans', () => {
     // Another cellar has its own copies.
     const theirs = await plansOf(other);
     expect(theirs.map((p) => p.id).some((id) => plans.some((p) => p.id === id))).toBe(false);
+  });
+});
+
+describe('the age milestones', () => {
+  it('are named for the batch’s age, which is what they count from (its start)', async () => {
+    const mead = (await plansOf(other)).find((p) => p.name === 'Mead')!;
+    const milestones = mead.rules.filter((r) => r.id.startsWith('bulk-'));
+    expect(milestones.map((r) => [r.title, r.when])).toEqual(
+      [3, 6, 12].map((n) => [`${n} months old: taste it`, { type: 'after', anchor: 'start', after: { count: n, unit: 'months' } }]),
+    );
+  });
+
+  it('are renamed in plans a cellar already wrote, unless a Keeper wrote the title', async () => {
+    const rollback = new Error('rollback');
+    const stored = [
+      { id: 'bulk-3-months', title: '3 months in bulk: taste it' },
+      { id: 'bulk-6-months', title: 'Half a year: pour a glass' },
+      { id: 'weekly-reading', title: '3 months in bulk: taste it' },
+    ].map((r) => ({ ...r, what: 'milestone', when: { type: 'after', anchor: 'start', after: { count: 3, unit: 'months' } }, showDaysAhead: 0 }));
+    const after = await ds
+      .transaction(async (tx) => {
+        const [{ id }]: { id: string }[] = await tx.query(
+          `INSERT INTO plans (cellar_id, name, default_for, rules) VALUES ($1, 'Written before', '{}', $2) RETURNING id`,
+          [other.cellar.id, JSON.stringify(stored)],
+        );
+        await new AgeMilestoneTitles1796171400000().up(tx.queryRunner!);
+        const [row]: { rules: { id: string; title: string }[]; version: number }[] = await tx.query(
+          `SELECT rules, version FROM plans WHERE id = $1`,
+          [id],
+        );
+        throw Object.assign(rollback, { row });
+      })
+      .catch((err: unknown) =>
+        err === rollback ? (rollback as Error & { row: { rules: { id: string; title: string }[]; version: number } }).row : Promise.reject(err),
+      );
+    // Only the milestone still titled as the old default changes; the order and every other field stay.
+    expect(after.rules.map((r) => [r.id, r.title])).toEqual([
+      ['bulk-3-months', '3 months old: taste it'],
+      ['bulk-6-months', 'Half a year: pour a glass'],
+      ['weekly-reading', '3 months in bulk: taste it'],
+    ]);
+    expect(after.rules[0]).toEqual({ ...stored[0], title: '3 months old: taste it' });
+    expect(after.version).toBe(2);
   });
 });
 

@@ -98,7 +98,7 @@ function commonRules(bulkMilestones: number[], bottleAfterMonths: number): PlanR
       (months): PlanRuleInput => ({
         id: `bulk-${months}-months`,
         what: 'milestone',
-        title: `${months} months in bulk: taste it`,
+        title: `${months} months old: taste it`,
         when: { type: 'after', anchor: 'start', after: { count: months, unit: 'months' } },
         until: { stage: 'bottled' },
         showDaysAhead: 0,

@@ -20,7 +20,7 @@ describe('the default plans (common practice, pinned so a change is deliberate)'
     expect(rule('oak-check').when).toEqual({ type: 'every', every: { count: 3, unit: 'days' }, while: 'oak-in' });
   });
 
-  it('marks milestones at 3, 6 and 12 months in bulk and 6 and 12 in bottle (common practice)', () => {
+  it('marks milestones at 3, 6 and 12 months from the start and 6 and 12 in bottle (common practice)', () => {
     const milestones = mead.filter((r) => r.what === 'milestone').map((r) => [r.id, r.when.type === 'after' ? r.when.after.count : null]);
     expect(milestones).toEqual([
       ['bulk-3-months', 3],
