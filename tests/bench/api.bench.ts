@@ -128,6 +128,12 @@ await withBenchDatabase(async ({ ds }) => {
     .join('; ');
 
   const base = `/api/cellars/${cellarId}`;
+  // A shelf check as a phone sends it: every label on the shelf but the first, and one vessel from elsewhere.
+  const shelfCodes: { code: string }[] = await ds.query(
+    `SELECT v.code FROM placements p JOIN vessels v ON v.id = p.vessel_id WHERE p.shelf_id = $1 ORDER BY p.slot`,
+    [shelfId],
+  );
+  const checkedCodes = [...shelfCodes.slice(1).map((r) => r.code), code].filter((c, i, all) => all.indexOf(c) === i);
   const template = labelTemplates().get(TEMPLATE);
   if (!template) throw new Error(`No template ${TEMPLATE}`);
   const endpoints: Endpoint[] = [
@@ -140,6 +146,7 @@ await withBenchDatabase(async ({ ds }) => {
     { name: 'today', url: `${base}/today` },
     { name: 'tasks', url: `${base}/tasks`, slow: true },
     { name: 'label look-up', url: `/api/scan/${code}` },
+    { name: 'shelf check', url: `${base}/labels/shelf/${shelfId}/check?codes=${checkedCodes.join(',')}` },
     {
       name: 'shelf label PDF',
       url: `${base}/labels/pdf?shelf=${shelfId}&template=${TEMPLATE}`,
