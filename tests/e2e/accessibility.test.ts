@@ -9,7 +9,15 @@ import { makeRack, placeDirectly } from '../helpers/places';
 import { startRequest } from '../helpers/batches';
 import { sanitisedVessel } from '../helpers/vessels';
 import { describeInBrowser } from '../helpers/browser-app';
-import { clientRouteNames, measureScreen, overflowAt, seriousAxeViolations, MIN_FONT_PX, MIN_TARGET_PX } from '../helpers/a11y-audit';
+import {
+  clientRouteNames,
+  measureScreen,
+  overflowAt,
+  seriousAxeViolations,
+  shoutedControls,
+  MIN_FONT_PX,
+  MIN_TARGET_PX,
+} from '../helpers/a11y-audit';
 
 /**
  * Every screen of the client, signed in as a Keeper (and the signed-out ones), at phone and
@@ -218,7 +226,7 @@ describeInBrowser('every screen is usable by everyone, in Chromium', (env) => {
   }
 
   for (const [name, recipe] of SCREENS) {
-    it(`${name} at 360 px: nothing wider than the screen, bottom bar inside it`, async () => {
+    it(`${name} at 360 px: nothing wider than the screen, bottom bar inside it, buttons in sentence case`, async () => {
       await page.setViewportSize({ width: 360, height: 760 });
       await visit(recipe);
       const box = await overflowAt(page);
@@ -229,6 +237,8 @@ describeInBrowser('every screen is usable by everyone, in Chromium', (env) => {
         expect(box.bottomBar!.right).toBeLessThanOrEqual(360);
         expect(box.bottomBar!.bottom).toBeLessThanOrEqual(box.viewportHeight);
       }
+      // "Empty this vessel", never "EMPTY THIS VESSEL": labels read as written (src/css/app.css).
+      expect(await shoutedControls(page), `${name}: buttons shown in capitals`).toEqual([]);
     }, 60_000);
   }
 });

@@ -193,3 +193,13 @@ export function overflowAt(
 }
 
 type DOMRectJSON = { x: number; y: number; width: number; height: number; top: number; right: number; bottom: number; left: number };
+
+/**
+ * Buttons and tabs whose words are not shown as written (Quasar capitalises them unless told not
+ * to; the app's stylesheet tells it once, for every button). Each as its text.
+ */
+export function shoutedControls(page: Page): Promise<string[]> {
+  return page.$$eval('.q-btn, .q-tab', (els) =>
+    els.filter((el) => (el.textContent ?? '').trim() !== '' && getComputedStyle(el).textTransform !== 'none').map((el) => el.textContent!.trim()),
+  );
+}
