@@ -17,5 +17,5 @@ export function headspaceWords(capacityL: number, volumeL: number | null, volume
   if (volumeL === null || volumeL <= 0) return null;
   if (volumeL > capacityL + 1e-6) return `More than it holds (${volume(capacityL)}).`;
   const space = headspace({ capacityL, volumeL: Math.min(volumeL, capacityL) });
-  return `Headspace ${volume(space.litres)} (${space.percent.toFixed(1)} %)`;
+  return `Headspace ${volume(space.litres)} (${space.percent.toFixed(1)}\u00a0%)`;
 }
