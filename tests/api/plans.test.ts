@@ -58,45 +58,50 @@ describe('the default plans', () => {
 });
 
 describe('the age milestones', () => {
-  it('are named for the batch’s age, which is what they count from (its start)', async () => {
+  it('are named for what they count from, with no colon of their own before the rule’s words', async () => {
     const mead = (await plansOf(other)).find((p) => p.name === 'Mead')!;
-    const milestones = mead.rules.filter((r) => r.id.startsWith('bulk-'));
-    expect(milestones.map((r) => [r.title, r.when])).toEqual(
-      [3, 6, 12].map((n) => [`${n} months old: taste it`, { type: 'after', anchor: 'start', after: { count: n, unit: 'months' } }]),
-    );
+    expect(mead.rules.filter((r) => r.what === 'milestone').map((r) => [r.title, r.when])).toEqual([
+      ...[3, 6, 12].map((n) => [`Taste it at ${n} months old`, { type: 'after', anchor: 'start', after: { count: n, unit: 'months' } }]),
+      ...[6, 12].map((n) => [`Open one at ${n} months in bottle`, { type: 'after', anchor: 'bottling', after: { count: n, unit: 'months' } }]),
+    ]);
   });
 
   it('are renamed in plans a cellar already wrote, unless a Keeper wrote the title', async () => {
+    type Row = { rules: { id: string; title: string }[]; version: number };
     const rollback = new Error('rollback');
     const stored = [
       { id: 'bulk-3-months', title: '3 months in bulk: taste it' },
       { id: 'bulk-6-months', title: 'Half a year: pour a glass' },
+      { id: 'bottle-12-months', title: '12 months in bottle: open one' },
+      { id: 'bottle-6-months', title: '12 months in bottle: open one' },
       { id: 'weekly-reading', title: '3 months in bulk: taste it' },
     ].map((r) => ({ ...r, what: 'milestone', when: { type: 'after', anchor: 'start', after: { count: 3, unit: 'months' } }, showDaysAhead: 0 }));
-    const after = await ds
+    const seen = await ds
       .transaction(async (tx) => {
         const [{ id }]: { id: string }[] = await tx.query(
           `INSERT INTO plans (cellar_id, name, default_for, rules) VALUES ($1, 'Written before', '{}', $2) RETURNING id`,
           [other.cellar.id, JSON.stringify(stored)],
         );
-        await new AgeMilestoneTitles1796171400000().up(tx.queryRunner!);
-        const [row]: { rules: { id: string; title: string }[]; version: number }[] = await tx.query(
-          `SELECT rules, version FROM plans WHERE id = $1`,
-          [id],
-        );
-        throw Object.assign(rollback, { row });
+        const read = async (): Promise<Row> => (await tx.query(`SELECT rules, version FROM plans WHERE id = $1`, [id]))[0];
+        const migration = new AgeMilestoneTitles1796171400000();
+        await migration.up(tx.queryRunner!);
+        const up = await read();
+        await migration.down(tx.queryRunner!);
+        throw Object.assign(rollback, { up, down: await read() });
       })
-      .catch((err: unknown) =>
-        err === rollback ? (rollback as Error & { row: { rules: { id: string; title: string }[]; version: number } }).row : Promise.reject(err),
-      );
-    // Only the milestone still titled as the old default changes; the order and every other field stay.
-    expect(after.rules.map((r) => [r.id, r.title])).toEqual([
-      ['bulk-3-months', '3 months old: taste it'],
+      .catch((err: unknown) => (err === rollback ? (rollback as Error & { up: Row; down: Row }) : Promise.reject(err)));
+    // Only milestones still titled as the old default for their own months change; order and every other field stay.
+    expect(seen.up.rules.map((r) => [r.id, r.title])).toEqual([
+      ['bulk-3-months', 'Taste it at 3 months old'],
       ['bulk-6-months', 'Half a year: pour a glass'],
+      ['bottle-12-months', 'Open one at 12 months in bottle'],
+      ['bottle-6-months', '12 months in bottle: open one'],
       ['weekly-reading', '3 months in bulk: taste it'],
     ]);
-    expect(after.rules[0]).toEqual({ ...stored[0], title: '3 months old: taste it' });
-    expect(after.version).toBe(2);
+    expect(seen.up.rules[0]).toEqual({ ...stored[0], title: 'Taste it at 3 months old' });
+    expect(seen.up.version).toBe(2);
+    // Down gives the old titles back.
+    expect(seen.down.rules).toEqual(stored);
   });
 });
 

@@ -98,7 +98,7 @@ function commonRules(bulkMilestones: number[], bottleAfterMonths: number): PlanR
       (months): PlanRuleInput => ({
         id: `bulk-${months}-months`,
         what: 'milestone',
-        title: `${months} months old: taste it`,
+        title: `Taste it at ${months} months old`,
         when: { type: 'after', anchor: 'start', after: { count: months, unit: 'months' } },
         until: { stage: 'bottled' },
         showDaysAhead: 0,
@@ -109,7 +109,7 @@ function commonRules(bulkMilestones: number[], bottleAfterMonths: number): PlanR
       (months): PlanRuleInput => ({
         id: `bottle-${months}-months`,
         what: 'milestone',
-        title: `${months} months in bottle: open one`,
+        title: `Open one at ${months} months in bottle`,
         when: { type: 'after', anchor: 'bottling', after: { count: months, unit: 'months' } },
         showDaysAhead: 0,
         note: `${CP}: open a bottle at each milestone in bottle.`,
