@@ -14,6 +14,7 @@ import {
   measureScreen,
   overflowAt,
   seriousAxeViolations,
+  cutLabels,
   shoutedControls,
   MIN_FONT_PX,
   MIN_TARGET_PX,
@@ -239,6 +240,7 @@ describeInBrowser('every screen is usable by everyone, in Chromium', (env) => {
       }
       // "Empty this vessel", never "EMPTY THIS VESSEL": labels read as written (src/css/app.css).
       expect(await shoutedControls(page), `${name}: buttons shown in capitals`).toEqual([]);
+      expect(await cutLabels(page), `${name}: field labels cut short`).toEqual([]);
     }, 60_000);
   }
 });

@@ -203,3 +203,18 @@ export function shoutedControls(page: Page): Promise<string[]> {
     els.filter((el) => (el.textContent ?? '').trim() !== '' && getComputedStyle(el).textTransform !== 'none').map((el) => el.textContent!.trim()),
   );
 }
+
+/**
+ * Field labels cut short with an ellipsis (Quasar keeps a label on one line): a maker would not
+ * know what the field asks for. Each as its full text.
+ */
+export function cutLabels(page: Page): Promise<string[]> {
+  return page.$$eval('.q-field__label', (els) =>
+    els
+      .filter((el) => {
+        const box = el.getBoundingClientRect();
+        return box.width > 0 && getComputedStyle(el).visibility !== 'hidden' && el.scrollWidth > el.clientWidth + 1;
+      })
+      .map((el) => (el.textContent ?? '').trim()),
+  );
+}
