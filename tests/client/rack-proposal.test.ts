@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import RackProposal from '@/components/operations/RackProposal.vue';
-import { headspaceWords } from '@/components/operations/vessel-words';
+import { fillHeadspaceHint } from '@/components/operations/vessel-words';
 import { fakeApi } from './support/fake-api';
 import { BATCH_ID, CELLAR_ID, signIn, vessel } from './support/fixtures';
 import { mountInApp, pick } from './support/mount-in-app';
@@ -28,6 +28,6 @@ describe('the proposed vessels for a racking', () => {
     const why = pick('[data-test=rack-proposal-why]').textContent!;
     expect(why).toContain('1.48 L (7.8\u00a0%)');
     // The fill's own hint for the same vessel and volume says the same figure.
-    expect(headspaceWords(19, 17.52, (l) => `${l.toFixed(2)} L`)).toBe('Headspace 1.48 L (7.8\u00a0%)');
+    expect(fillHeadspaceHint(19, 17.52, (l) => `${l.toFixed(2)} L`)).toBe('Headspace 1.48 L (7.8\u00a0%)');
   });
 });

@@ -227,7 +227,7 @@ describeInBrowser('every screen is usable by everyone, in Chromium', (env) => {
   }
 
   for (const [name, recipe] of SCREENS) {
-    it(`${name} at 360 px: nothing wider than the screen, bottom bar inside it, buttons in sentence case`, async () => {
+    it(`${name} at 360 px: nothing wider than the screen, bottom bar inside it, buttons in sentence case, labels whole`, async () => {
       await page.setViewportSize({ width: 360, height: 760 });
       await visit(recipe);
       const box = await overflowAt(page);

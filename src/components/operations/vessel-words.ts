@@ -13,9 +13,9 @@ export function vesselOptionLabel(
  * @param capacityL - the vessel's capacity
  * @param volumeL - what goes in
  */
-export function headspaceWords(capacityL: number, volumeL: number | null, volume: (litres: number) => string): string | null {
+export function fillHeadspaceHint(capacityL: number, volumeL: number | null, volume: (litres: number) => string): string | null {
   if (volumeL === null || volumeL <= 0) return null;
   if (volumeL > capacityL + 1e-6) return `More than it holds (${volume(capacityL)}).`;
-  const space = headspace({ capacityL, volumeL: Math.min(volumeL, capacityL) });
+  const space = headspace({ capacityL, volumeL: Math.min(volumeL, capacityL) }); // a hair over, within the tolerance above, counts as full
   return `Headspace ${volume(space.litres)} (${space.percent.toFixed(1)}\u00a0%)`;
 }
