@@ -16,9 +16,12 @@ export const DATE_STYLE_EXAMPLES: Record<DateStyle, string> = {
   'yyyy-mm-dd': '2026-12-02',
 };
 
-/** What a date field shows as its placeholder in each style. */
+/**
+ * What an empty date field shows in each style: the pattern, never a date, which in a field
+ * for a day to come (a take-out date) would read like a day gone by.
+ */
 export const DATE_STYLE_PLACEHOLDERS: Record<DateStyle, string> = {
-  'd-mmm-yyyy': 'e.g. 2 Dec 2026',
+  'd-mmm-yyyy': 'd mmm yyyy',
   'dd/mm/yyyy': 'dd/mm/yyyy',
   'mm/dd/yyyy': 'mm/dd/yyyy',
   'yyyy-mm-dd': 'yyyy-mm-dd',

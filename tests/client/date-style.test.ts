@@ -1,6 +1,6 @@
 import { beforeEach, describe, expect, it } from 'vitest';
 import { DOMWrapper, flushPromises } from '@vue/test-utils';
-import { defineComponent, h, ref } from 'vue';
+import { defineComponent, h, ref, type Ref } from 'vue';
 import DateField from '@/components/DateField.vue';
 import DateStyleChoice from '@/components/DateStyleChoice.vue';
 import { datesInStyle, formatDateInStyle, parseDateInStyle } from '@/composables/date-style';
@@ -9,6 +9,14 @@ import { usePreferencesStore } from '@/stores/preferences';
 import { fakeApi } from './support/fake-api';
 import { CELLAR_ID, signIn } from './support/fixtures';
 import { mountInApp, pick } from './support/mount-in-app';
+
+/** A DateField bound to a ref, as a form binds it. */
+function mountDateField(value: Ref<string>, label: string) {
+  const Harness = defineComponent({
+    setup: () => () => h(DateField, { modelValue: value.value, label, 'onUpdate:modelValue': (v: string) => (value.value = v) }),
+  });
+  return mountInApp(Harness, `/c/${CELLAR_ID}/tasks`);
+}
 
 // 2 December 2026 written in each style the user can choose.
 describe('date styles', () => {
@@ -60,10 +68,7 @@ describe('dates follow the chosen style', () => {
   it('DateField shows and takes the date in the style and hands on YYYY-MM-DD', async () => {
     localStorage.setItem('cellarwright.dateStyle', 'dd/mm/yyyy');
     const value = ref('2026-05-03');
-    const Harness = defineComponent({
-      setup: () => () => h(DateField, { modelValue: value.value, label: 'When', 'onUpdate:modelValue': (v: string) => (value.value = v) }),
-    });
-    await mountInApp(Harness, `/c/${CELLAR_ID}/tasks`);
+    await mountDateField(value, 'When');
     const input = pick<HTMLInputElement>('input');
     expect(input.value).toBe('03/05/2026');
 
@@ -74,6 +79,19 @@ describe('dates follow the chosen style', () => {
     await new DOMWrapper(input).setValue('12/24/2026');
     await flushPromises();
     expect(value.value).toBe('12/24/2026');
-    expect(document.body.textContent).toContain('Write the date like dd/mm/yyyy');
+    expect(document.body.textContent).toContain('Write the date as dd/mm/yyyy (e.g. 02/12/2026), or pick it on the calendar.');
+  });
+
+  it('DateField shows the pattern when empty, never a date, and an example once a date cannot be read', async () => {
+    // The default style. A dated placeholder read like a day gone by in a field for a day to come.
+    const value = ref('');
+    await mountDateField(value, 'Take out on');
+    const input = pick<HTMLInputElement>('input');
+    expect(input.placeholder).toBe('d mmm yyyy');
+
+    await new DOMWrapper(input).setValue('30 Feb 2027');
+    await flushPromises();
+    expect(value.value).toBe('30 Feb 2027');
+    expect(document.body.textContent).toContain('Write the date as d mmm yyyy (e.g. 2 Dec 2026), or pick it on the calendar.');
   });
 });

@@ -55,7 +55,7 @@ describe('dating oak taken out and bottles that left', () => {
     await type('[data-test=addition-name]', 'Raspberries');
     await type('[data-test=addition-amount]', '500');
     await type('[data-test=addition-remove-on]', '31/02/2099');
-    expect(fieldMessage('[data-test=addition-remove-on]')).toBe('Write the date like dd/mm/yyyy, or pick it on the calendar.');
+    expect(fieldMessage('[data-test=addition-remove-on]')).toBe('Write the date as dd/mm/yyyy (e.g. 02/12/2026), or pick it on the calendar.');
     await type('[data-test=addition-remove-on]', '14/03/2099');
     pick('[data-test=addition-submit]').click();
     await flushPromises();
