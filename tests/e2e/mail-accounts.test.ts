@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { makeCellarWithCrew, makeUser, TEST_PASSWORD, type CellarCrew } from '../helpers/crew';
 import { linkIn, mailTo, privateDataSource, testMailbox, type TestMail } from '../helpers/mail';
+import { shoutedControls } from '../helpers/a11y-audit';
 import { signInThroughForm } from '../helpers/browser-app';
 import { chromiumAvailable, launchBrowser } from '../tools/browser';
 
@@ -85,6 +86,10 @@ const missing = !chromiumAvailable() ? 'Chromium' : !fs.existsSync(path.join(dis
     await keeper.click('[data-test=open-outgoing-mail]');
     await keeper.waitForSelector('[data-test=local-mailbox-note]');
     expect(await keeper.textContent('[data-test=mailbox]')).toContain('invites you to "Mail test cellar"');
+    // Opened, a mail shows its two views as tabs, in sentence case like every control.
+    await keeper.click('[data-test=mailbox] .q-expansion-item >> nth=0');
+    await keeper.waitForSelector('[data-test=mail-html]');
+    expect(await shoutedControls(keeper)).toEqual([]);
     await keeper.close();
     await context.clearCookies();
 
