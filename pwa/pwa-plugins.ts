@@ -1,6 +1,6 @@
 import type { PluginOption } from 'vite';
 import { VitePWA, type ManifestOptions } from 'vite-plugin-pwa';
-import { brandColours } from '../src/theme';
+import { brandColours } from '../shared/palette';
 import { APP_ICONS, appIcons } from './app-icons';
 import { runtimeCaching } from './runtime-caching';
 

@@ -17,7 +17,7 @@ import { createAppRouter } from './router';
 import { removeFirstGlance } from './router/first-glance';
 import { routeTo } from './router/locations';
 import { useSessionStore } from './stores/session';
-import { brandColours } from './theme';
+import { brandColours } from '@shared/palette';
 
 // When the app's own code starts: what index.html's early requests are measured against (tests/e2e/scan.test.ts).
 performance.mark('cellarwright:app-start');

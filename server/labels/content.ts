@@ -1,14 +1,7 @@
 import { ABV_FORMULA_LABELS, abvBy, DEFAULT_ABV_FORMULA, formatVolume, type UnitSystem } from '../../shared/calc';
+import { dayMonthYear } from '../../shared/date-words';
 import { BATCH_KIND_LABELS } from '../../shared/schemas/batches';
 import type { LabelItem } from './types';
-
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
-/** "2026-03-14" → "14 Mar 2026" (a calendar date: no time zone involved). */
-export function labelDate(iso: string): string {
-  const [y, m, d] = iso.slice(0, 10).split('-').map(Number);
-  return y && m && d ? `${d} ${MONTHS[m - 1]} ${y}` : iso;
-}
 
 /** The printed ABV: always marked as an estimate; "—" when unknown. */
 export function abvText(abv: number | null): string {
@@ -66,10 +59,10 @@ export function vesselLabel(row: VesselLabelRow): LabelItem {
       capacity: `${capitalised(row.vesselKind)} · ${formatVolume(row.capacityL, row.unitSystem)}`,
       batch: holding ? row.batchName! : '',
       kind: holding ? kindLabel(row.batchKind) : '',
-      started: holding && row.startedOn ? `Started ${labelDate(row.startedOn)}` : '',
+      started: holding && row.startedOn ? `Started ${dayMonthYear(row.startedOn)}` : '',
       og: holding ? `OG ${row.og === null ? '—' : row.og.toFixed(3)}` : '',
       abv: holding ? abvText(currentAbv(row.og, row.lastSg)) : '',
-      printed: holding ? `Contents on ${labelDate(printedOn)}` : '',
+      printed: holding ? `Contents on ${dayMonthYear(printedOn)}` : '',
     },
   };
 }
@@ -92,7 +85,7 @@ function bottleTexts(row: BottleLabelRow, contents: string): LabelItem['texts'] 
     batch: row.batchName,
     code: row.code,
     kind: kindLabel(row.batchKind) + (row.carbonation === 'sparkling' ? ' · sparkling' : ''),
-    bottled: `Bottled ${labelDate(row.bottledOn)}`,
+    bottled: `Bottled ${dayMonthYear(row.bottledOn)}`,
     contents,
     abv: abvText(row.abv),
     sulfites: row.sulfiteAdded ? 'Contains sulfites' : '',

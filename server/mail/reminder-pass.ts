@@ -77,6 +77,7 @@ function reminders(r: ReminderRecipient, due: Task[], o: ReminderPassOptions & {
     dedupeKey,
     ...reminderMail({
       ...common,
+      today: o.today,
       form: kind === 'task-digest' ? 'digest' : 'reminder',
       tasks: tasks.map((t) => asReminderTask(t, r.cellarId, o.publicUrl)),
     }),

@@ -2,6 +2,7 @@ import { Router, type Response } from 'express';
 import type { DataSource } from 'typeorm';
 import { TASK_WHATS } from '../../shared/schemas/plans';
 import { inTransaction } from '../core/unit-of-work';
+import { brandColours } from '../../shared/palette';
 import { escapeHtml } from './mail-layout';
 import { verifyUnsubscribe } from './unsubscribe-links';
 
@@ -12,8 +13,8 @@ function page(res: Response, status: number, heading: string, body: string): voi
     .send(
       `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">` +
         `<title>${escapeHtml(heading)} · Cellarwright</title></head>` +
-        `<body style="font-family:Helvetica,Arial,sans-serif;max-width:32rem;margin:3rem auto;padding:0 1rem;color:#1f2a24">` +
-        `<h1 style="font-size:1.4rem;color:#2f5d50">${escapeHtml(heading)}</h1>${body}</body></html>`,
+        `<body style="font-family:Helvetica,Arial,sans-serif;max-width:32rem;margin:3rem auto;padding:0 1rem;color:#232134">` +
+        `<h1 style="font-size:1.4rem;color:${brandColours.primary}">${escapeHtml(heading)}</h1>${body}</body></html>`,
     );
 }
 
@@ -38,7 +39,7 @@ export function unsubscribeRoutes(ds: DataSource, secret: string): Router {
       200,
       'Stop reminder mails?',
       `<p>You will get no more reminder or digest mails from “${escapeHtml(name)}”. You can turn them on again in the app's settings.</p>` +
-        `<form method="post"><button type="submit" style="background:#2f5d50;color:#fff;border:0;padding:10px 18px;border-radius:6px;font-size:1rem">Stop these mails</button></form>`,
+        `<form method="post"><button type="submit" style="background:${brandColours.secondary};color:#fff;border:0;padding:10px 18px;border-radius:6px;font-size:1rem">Stop these mails</button></form>`,
     );
   });
 

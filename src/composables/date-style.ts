@@ -1,3 +1,5 @@
+import { MONTH_ABBREVIATIONS } from '@shared/date-words';
+
 /**
  * The date styles a user can choose, and the pure conversions between a calendar date
  * (YYYY-MM-DD, as the API carries it) and the way it is shown and typed in that style.
@@ -5,8 +7,6 @@
 export const DATE_STYLES = ['d-mmm-yyyy', 'dd/mm/yyyy', 'mm/dd/yyyy', 'yyyy-mm-dd'] as const;
 export type DateStyle = (typeof DATE_STYLES)[number];
 export const DEFAULT_DATE_STYLE: DateStyle = 'd-mmm-yyyy';
-
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
 /** How each style looks, for the chooser: 2 December 2026 written in it. */
 export const DATE_STYLE_EXAMPLES: Record<DateStyle, string> = {
@@ -68,7 +68,7 @@ export function formatDateInStyle(value: string | Date, style: DateStyle): strin
     case 'yyyy-mm-dd':
       return `${y}-${pad(m)}-${pad(d)}`;
     default:
-      return `${d} ${MONTHS[m - 1]} ${y}`;
+      return `${d} ${MONTH_ABBREVIATIONS[m - 1]} ${y}`;
   }
 }
 
@@ -81,7 +81,7 @@ export function parseDateInStyle(text: string, style: DateStyle): string | null 
   let parts: [number, number, number] | null = null;
   if (style === 'd-mmm-yyyy') {
     const m = /^(\d{1,2})\s+([A-Za-z]{3,9})\.?\s+(\d{4})$/.exec(t);
-    const month = m ? MONTHS.findIndex((name) => m[2].toLowerCase().startsWith(name.toLowerCase())) + 1 : 0;
+    const month = m ? MONTH_ABBREVIATIONS.findIndex((name) => m[2].toLowerCase().startsWith(name.toLowerCase())) + 1 : 0;
     parts = m && month > 0 ? realDate(Number(m[3]), month, Number(m[1])) : null;
   } else if (style === 'yyyy-mm-dd') {
     const m = /^(\d{4})-(\d{1,2})-(\d{1,2})$/.exec(t);

@@ -1,3 +1,4 @@
+import dayjs from 'dayjs';
 import type { Express } from 'express';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
@@ -90,9 +91,12 @@ describe('the reminder pass', () => {
     await mail.deliverAll(ds);
     const [digest] = await mailTo(mail.mailbox, crew.keeper.email);
     // The digest lists every kind by default: the two tasks above, and what the cellar's plan makes due.
-    expect(digest!.subject).toMatch(new RegExp(`^Due today in "${crew.cellar.name}": \\d+ tasks$`));
-    expect(digest!.text).toContain('Rack off the lees (Heather melomel)');
-    expect(digest!.text).toContain('Check the headspace (Heather melomel)');
+    // One of the two was due yesterday: the subject counts it overdue, its line says since when (dayjs writes the day).
+    const yesterday = dayjs(localDate(new Date(), ZONE)).subtract(1, 'day').format('D MMM YYYY');
+    expect(digest!.subject!.startsWith(`${crew.cellar.name}: `)).toBe(true);
+    expect(digest!.subject!.slice(crew.cellar.name.length)).toMatch(/^: \d+ tasks? overdue, \d+ due$/);
+    expect(digest!.text).toContain('Rack off the lees: Heather melomel\nDue today\n');
+    expect(digest!.text).toContain(`Check the headspace: Heather melomel\nDue ${yesterday}, 1 day overdue\n`);
     expect(digest!.text).toContain(`${PUBLIC_URL}/c/${crew.cellar.id}/batches/${crew.batchId}`);
     expect(digest!.html).toContain(`${PUBLIC_URL}/c/${crew.cellar.id}/batches/${crew.batchId}`);
     const header = (key: string) => digest!.headerLines.find((h) => h.key === key)?.line.replace(/\r\n\s+/g, ' ');
@@ -100,8 +104,8 @@ describe('the reminder pass', () => {
     expect(header('list-unsubscribe-post')).toBe('List-Unsubscribe-Post: List-Unsubscribe=One-Click');
     const reminders = await mailTo(mail.mailbox, crew.hand.email);
     expect(reminders.map((m) => m.subject).sort()).toEqual([
-      'Due: Check the headspace (Heather melomel)',
       'Due: Rack off the lees (Heather melomel)',
+      'Overdue: Check the headspace (Heather melomel)',
     ]);
   });
 

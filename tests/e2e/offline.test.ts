@@ -1,6 +1,6 @@
 import { beforeAll, expect, it } from 'vitest';
 import type { Page, Request } from 'playwright-core';
-import { brandColours } from '../../src/theme';
+import { brandColours } from '../../shared/palette';
 import { rackBatch } from '../../server/batches/racking.service';
 import { inTransaction } from '../../server/core/unit-of-work';
 import { makeBatch } from '../helpers/batches';

@@ -14,7 +14,7 @@ import { makeVessel } from '../helpers/vessels';
 import { writeQrVideo } from '../helpers/fake-camera';
 import { launchBrowser } from '../tools/browser';
 import { chooseFromMenu, describeInBrowser, signInThroughForm } from '../helpers/browser-app';
-import { brandColours } from '../../src/theme';
+import { brandColours } from '../../shared/palette';
 
 describeInBrowser('scanning labels, in Chromium', (env) => {
   let crew: CellarCrew;

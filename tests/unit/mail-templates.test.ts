@@ -40,13 +40,15 @@ describe('our mail design', () => {
 });
 
 describe('reminder and digest mails', () => {
-  const task = (title: string, subject: string, url: string) => ({ title, subject, url, dueOn: '2026-12-03' });
+  const task = (title: string, subject: string, url: string, dueOn = '2026-12-03') => ({ title, subject, url, dueOn });
   const unsubscribeUrl = 'http://cellar.example.test/api/mail/unsubscribe?m=abc.sig';
+  const today = '2026-12-03';
 
   it('carry the one-click unsubscribe headers of RFC 8058 and link straight to the batch', async () => {
     const mail = reminderMail({
       cellarName: 'Fernhollow',
       recipientName: 'Maren',
+      today,
       form: 'reminder',
       unsubscribeUrl,
       tasks: [task('Rack', 'Heather melomel in Demijohn 3', 'http://cellar.example.test/c/1/batches/2')],
@@ -57,25 +59,62 @@ describe('reminder and digest mails', () => {
     expect(header('list-unsubscribe')).toBe(`List-Unsubscribe: <${unsubscribeUrl}>`);
     expect(header('list-unsubscribe-post')).toBe('List-Unsubscribe-Post: List-Unsubscribe=One-Click');
     expect(received.subject).toBe('Due: Rack (Heather melomel in Demijohn 3)');
+    expect(received.text).toContain('Due today.');
     expect(received.text).toContain('Open it: http://cellar.example.test/c/1/batches/2');
     expect(received.text).toContain(unsubscribeUrl);
     expect(received.html).toContain('href="http://cellar.example.test/c/1/batches/2"');
   });
 
-  it('lists every task of the day in a digest', () => {
+  it('say how long an overdue task has waited, with the day in words', () => {
+    // 11 Aug 2026 to 3 Dec 2026, counted on a calendar: 20 + 30 + 31 + 30 + 3 = 114 days.
     const mail = reminderMail({
       cellarName: 'Fernhollow',
       recipientName: 'Maren',
+      today,
+      form: 'reminder',
+      unsubscribeUrl,
+      tasks: [task('Rack off the lees', 'Linden metheglin in Big Glass', 'http://x.test/a', '2026-08-11')],
+    });
+    expect(mail.subject).toBe('Overdue: Rack off the lees (Linden metheglin in Big Glass)');
+    expect(mail.text).toContain('Due 11 Aug 2026, 114 days overdue.');
+    expect(mail.text.split('\n')[0]).toBe('Rack off the lees is overdue');
+  });
+
+  it('list every task of the day in a digest, the longest waiting first, each title a link to its batch', () => {
+    const mail = reminderMail({
+      cellarName: 'Fernhollow',
+      recipientName: 'Maren',
+      today,
       form: 'digest',
       unsubscribeUrl,
-      tasks: [task('Rack', 'Cyser', 'http://x.test/a'), task('Check headspace', 'Pyment', 'http://x.test/b')],
+      tasks: [
+        task('Rack', 'Cyser', 'http://x.test/a'),
+        task('Check headspace', 'Pyment', 'http://x.test/b', '2026-12-02'),
+        task('Take out <oak>', 'Bochet', 'http://x.test/c?a=1&b=2', '2026-11-30'),
+      ],
     });
-    expect(mail.subject).toBe('Due today in "Fernhollow": 2 tasks');
-    expect(mail.text).toContain('2026-12-03: Rack (Cyser) http://x.test/a');
-    expect(mail.text).toContain('2026-12-03: Check headspace (Pyment) http://x.test/b');
+    expect(mail.subject).toBe('Fernhollow: 2 tasks overdue, 1 due');
+    expect(mail.text).toContain('Take out <oak>: Bochet\nDue 30 Nov 2026, 3 days overdue\nhttp://x.test/c?a=1&b=2\n\n');
+    expect(mail.text).toContain('Check headspace: Pyment\nDue 2 Dec 2026, 1 day overdue\nhttp://x.test/b\n\n');
+    expect(mail.text).toContain('Rack: Cyser\nDue today\nhttp://x.test/a\n\n');
+    const order = ['Take out <oak>', 'Check headspace:', 'Rack:'].map((t) => mail.text.indexOf(t));
+    expect(order).toEqual([...order].sort((a, b) => a - b));
+    expect(mail.html).toContain('<a href="http://x.test/c?a=1&amp;b=2" style="color:#33304f;font-weight:bold">Take out &lt;oak&gt;</a>');
+    expect(mail.html).not.toContain('<oak>');
+    // The overdue lines carry the warning colour as well as the words.
+    expect(mail.html).toMatch(/color:#b3261e">Due 30 Nov 2026, 3 days overdue</);
+    expect(mail.html).toMatch(/color:#55536a">Due today</);
+  });
+
+  it('count a digest with nothing overdue, and one with nothing due today', () => {
+    const base = { cellarName: 'Fernhollow', recipientName: 'Maren', today, form: 'digest' as const, unsubscribeUrl };
+    expect(reminderMail({ ...base, tasks: [task('Rack', 'Cyser', 'http://x.test/a')] }).subject).toBe('Fernhollow: 1 task due');
+    expect(reminderMail({ ...base, tasks: [task('Rack', 'Cyser', 'http://x.test/a', '2026-12-01')] }).subject).toBe('Fernhollow: 1 task overdue');
   });
 
   it('refuses to send an empty reminder', () => {
-    expect(() => reminderMail({ cellarName: 'F', recipientName: 'M', form: 'digest', unsubscribeUrl, tasks: [] })).toThrow(/at least one task/);
+    expect(() => reminderMail({ cellarName: 'F', recipientName: 'M', today, form: 'digest', unsubscribeUrl, tasks: [] })).toThrow(
+      /at least one task/,
+    );
   });
 });

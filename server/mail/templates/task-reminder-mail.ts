@@ -1,4 +1,6 @@
-import { renderHtml, renderText, type MailBody } from '../mail-layout';
+import { dayMonthYear } from '../../../shared/date-words';
+import { daysBetween } from '../../../shared/domain/plans/local-dates';
+import { renderHtml, renderText, type MailBody, type MailItem } from '../mail-layout';
 
 /** One due task as a reminder or digest line shows it. */
 export interface ReminderTask {
@@ -14,11 +16,32 @@ export interface ReminderTask {
 export interface ReminderMailInput {
   cellarName: string;
   recipientName: string;
+  /** The cellar's local date, YYYY-MM-DD: what counts as overdue. */
+  today: string;
   tasks: ReminderTask[];
   /** Signed one-click link that turns these mails off for this member and cellar. */
   unsubscribeUrl: string;
   /** 'digest': the day's list at the member's hour; 'reminder': one task as soon as it is due. */
   form: 'reminder' | 'digest';
+}
+
+/** "1 day", "116 days". */
+const count = (n: number, noun: string) => `${n} ${noun}${n === 1 ? '' : 's'}`;
+
+/** "Due today", or the day and how long ago ("Due 11 Aug 2026, 116 days overdue"). Dates in words: a mail knows no one's date style. */
+function dueWords(dueOn: string, today: string): string {
+  const late = daysBetween(dueOn, today);
+  if (late === 0) return 'Due today';
+  if (late < 0) return `Due ${dayMonthYear(dueOn)}`;
+  return `Due ${dayMonthYear(dueOn)}, ${count(late, 'day')} overdue`;
+}
+
+/** "7 tasks overdue, 1 due today" (the subject's and the heading's count). */
+function countWords(tasks: readonly ReminderTask[], today: string): string {
+  const overdue = tasks.filter((t) => t.dueOn < today).length;
+  const rest = tasks.length - overdue;
+  if (overdue === 0) return `${count(rest, 'task')} due`;
+  return rest === 0 ? `${count(overdue, 'task')} overdue` : `${count(overdue, 'task')} overdue, ${rest} due`;
 }
 
 /**
@@ -27,20 +50,34 @@ export interface ReminderMailInput {
  */
 export function reminderMail(input: ReminderMailInput): { subject: string; text: string; html: string; headers: Record<string, string> } {
   if (input.tasks.length === 0) throw new Error('A reminder needs at least one task.');
-  const lines = input.tasks.map((t) => `${t.dueOn}: ${t.title} (${t.subject}) ${t.url}`);
+  // Longest waiting first (a snoozed task counts from the day its snooze ended); ties keep their order.
+  const byDue = [...input.tasks].sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : 0));
+  const items: MailItem[] = byDue.map((t) => ({
+    title: t.title,
+    subject: t.subject,
+    detail: dueWords(t.dueOn, input.today),
+    urgent: t.dueOn < input.today,
+    url: t.url,
+  }));
   const single = input.form === 'reminder' ? input.tasks[0]! : null;
-  const body: MailBody = {
-    heading: single ? `${single.title} is due` : `${input.tasks.length} task${input.tasks.length === 1 ? '' : 's'} due in "${input.cellarName}"`,
-    paragraphs: single
-      ? [`Hello ${input.recipientName}, in "${input.cellarName}": ${single.title} for ${single.subject}, due ${single.dueOn}.`]
-      : [`Hello ${input.recipientName}, what is due in "${input.cellarName}":`, ...lines],
-    action: single ? { label: 'Open it', url: single.url } : undefined,
-    footer: [`You get these because of your e-mail settings in "${input.cellarName}".`, `Stop them with one click: ${input.unsubscribeUrl}`],
-  };
+  const body: MailBody = single
+    ? {
+        heading: `${single.title} is ${single.dueOn < input.today ? 'overdue' : 'due'}`,
+        paragraphs: [`Hello ${input.recipientName}, in "${input.cellarName}": ${single.title} for ${single.subject}.`, `${items[0]!.detail}.`],
+        action: { label: 'Open it', url: single.url },
+        footer: [],
+      }
+    : {
+        heading: `${countWords(input.tasks, input.today)} in "${input.cellarName}"`,
+        paragraphs: [`Hello ${input.recipientName}, here is the cellar's work, the longest waiting first. Each title opens its batch.`],
+        items,
+        footer: [],
+      };
+  body.footer = [`You get these because of your e-mail settings in "${input.cellarName}".`, `Stop them with one click: ${input.unsubscribeUrl}`];
   return {
     subject: single
-      ? `Due: ${single.title} (${single.subject})`
-      : `Due today in "${input.cellarName}": ${input.tasks.length} task${input.tasks.length === 1 ? '' : 's'}`,
+      ? `${single.dueOn < input.today ? 'Overdue' : 'Due'}: ${single.title} (${single.subject})`
+      : `${input.cellarName}: ${countWords(input.tasks, input.today)}`,
     text: renderText(body),
     html: renderHtml(body),
     headers: {

@@ -1,6 +1,6 @@
 import type { ChartData } from 'chart.js';
 import type { DevicePoint } from '@shared/schemas/devices';
-import { brandColours } from '@/theme';
+import { brandColours } from '@shared/palette';
 
 type Point = { x: number; y: number };
 
