@@ -69,7 +69,7 @@ export function reminderMail(input: ReminderMailInput): { subject: string; text:
       }
     : {
         heading: `${countWords(input.tasks, input.today)} in "${input.cellarName}"`,
-        paragraphs: [`Hello ${input.recipientName}, here is the cellar's work, the longest waiting first. Each title opens its batch.`],
+        paragraphs: [`Hello ${input.recipientName}, here is the cellar's work, the longest waiting first, each with a link to its batch.`],
         items,
         footer: [],
       };
