@@ -25,7 +25,7 @@ describe('our mail design', () => {
     expect(mail.html).not.toContain('<script>');
     expect(mail.html).toContain('&lt;script&gt;alert(1)&lt;/script&gt; &amp; Co');
     expect(mail.text).toContain('"<script>alert(1)</script> & Co"');
-    expect(mail.text).toContain('until 2026-12-10 09:30 UTC');
+    expect(mail.text).toContain('until 10 Dec 2026, 09:30 UTC');
     expect(escapeHtml(`a<b>"c"&'d'`)).toBe('a&lt;b&gt;&quot;c&quot;&amp;&#39;d&#39;');
     const received = await asReceived(mail);
     expect(received.text).toContain('Accept the invitation: http://cellar.example.test/invitation?token=abc');

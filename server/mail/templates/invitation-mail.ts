@@ -1,3 +1,4 @@
+import { dayMonthYear } from '../../../shared/date-words';
 import { ROLE_LABELS, type Role } from '../../../shared/roles';
 import { renderHtml, renderText, type MailBody } from '../mail-layout';
 
@@ -21,7 +22,7 @@ export function invitationMail(input: InvitationMailInput): { subject: string; t
     heading: `Join "${input.cellarName}" on Cellarwright`,
     paragraphs: [
       `${input.inviterName} invites you to the cellar "${input.cellarName}" as ${ROLE_LABELS[input.role]}: you will be able to ${ROLE_WORDS[input.role]}.`,
-      `The link works once and until ${input.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC. If you have no account yet, you choose your name and password there.`,
+      `The link works once and until ${dayMonthYear(input.expiresAt.toISOString())}, ${input.expiresAt.toISOString().slice(11, 16)} UTC. If you have no account yet, you choose your name and password there.`,
     ],
     action: { label: 'Accept the invitation', url: input.acceptUrl },
     footer: ['If you did not expect this, ignore it: nobody joins a cellar without accepting.'],
