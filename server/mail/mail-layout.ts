@@ -53,7 +53,9 @@ export function renderHtml(body: MailBody): string {
     : '';
   const footer = body.footer.map((f) => `<p style="margin:0 0 6px;font-size:12px;color:#666666">${escapeHtml(f)}</p>`).join('');
   return [
-    '<!doctype html><html><body style="margin:0;padding:0;background:#f5f2ec">',
+    // The language and title let a screen reader in a mail client read it as English, under its heading.
+    `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(body.heading)}</title></head>`,
+    '<body style="margin:0;padding:0;background:#f5f2ec">',
     '<div style="max-width:560px;margin:0 auto;padding:24px 16px;font-family:Helvetica,Arial,sans-serif;color:#232134">',
     `<h1 style="margin:0 0 16px;font-size:20px;color:${HEADING}">${escapeHtml(body.heading)}</h1>`,
     body.paragraphs.map(p).join(''),

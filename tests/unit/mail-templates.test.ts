@@ -23,6 +23,8 @@ describe('our mail design', () => {
       expiresAt: new Date('2026-12-10T09:30:00Z'),
     });
     expect(mail.html).not.toContain('<script>');
+    expect(mail.html).toMatch(/^<!doctype html><html lang="en"><head><meta charset="utf-8">/);
+    expect(mail.html).toContain('<title>Join &quot;&lt;script&gt;alert(1)&lt;/script&gt; &amp; Co&quot; on Cellarwright</title>');
     expect(mail.html).toContain('&lt;script&gt;alert(1)&lt;/script&gt; &amp; Co');
     expect(mail.text).toContain('"<script>alert(1)</script> & Co"');
     expect(mail.text).toContain('until 10 Dec 2026, 09:30 UTC');
