@@ -22,6 +22,8 @@ export interface MailBody {
   action?: { label: string; url: string };
   /** Small print under a rule (why you got this, how to stop it). */
   footer: string[];
+  /** A link in the small print (how to stop these mails): a link in HTML, written out in text. */
+  footerLink?: { label: string; url: string };
 }
 
 /** One thing in a mail's list: a linked title, what it concerns, and a line of detail. */
@@ -40,6 +42,7 @@ export function renderText(body: MailBody): string {
   for (const item of body.items ?? []) lines.push(`${item.title}: ${item.subject}`, item.detail, item.url, '');
   if (body.action) lines.push(`${body.action.label}: ${body.action.url}`, '');
   lines.push('--', ...body.footer);
+  if (body.footerLink) lines.push(`${body.footerLink.label}: ${body.footerLink.url}`);
   return `${lines.join('\n')}\n`;
 }
 
@@ -51,7 +54,10 @@ export function renderHtml(body: MailBody): string {
     ? `<p style="margin:20px 0"><a href="${escapeHtml(body.action.url)}" style="background:${ACTION};color:#ffffff;padding:10px 18px;border-radius:6px;text-decoration:none;display:inline-block">${escapeHtml(body.action.label)}</a></p>` +
       `<p style="margin:0 0 14px;font-size:13px;color:#555555">Or open this link: <a href="${escapeHtml(body.action.url)}" style="color:${HEADING}">${escapeHtml(body.action.url)}</a></p>`
     : '';
-  const footer = body.footer.map((f) => `<p style="margin:0 0 6px;font-size:12px;color:#666666">${escapeHtml(f)}</p>`).join('');
+  const small = (html: string) => `<p style="margin:0 0 6px;font-size:12px;color:#666666">${html}</p>`;
+  const footer =
+    body.footer.map((f) => small(escapeHtml(f))).join('') +
+    (body.footerLink ? small(`<a href="${escapeHtml(body.footerLink.url)}" style="color:#666666">${escapeHtml(body.footerLink.label)}</a>`) : '');
   return [
     // The language and title let a screen reader in a mail client read it as English, under its heading.
     `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(body.heading)}</title></head>`,

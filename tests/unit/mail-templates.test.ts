@@ -63,7 +63,8 @@ describe('reminder and digest mails', () => {
     expect(received.subject).toBe('Due: Rack (Heather melomel in Demijohn 3)');
     expect(received.text).toContain('Due today.');
     expect(received.text).toContain('Open it: http://cellar.example.test/c/1/batches/2');
-    expect(received.text).toContain(unsubscribeUrl);
+    expect(received.text).toContain(`Stop them with one click: ${unsubscribeUrl}`);
+    expect(received.html).toContain(`<a href="${unsubscribeUrl}" style="color:#666666">Stop them with one click</a>`);
     expect(received.html).toContain('href="http://cellar.example.test/c/1/batches/2"');
   });
 

@@ -73,7 +73,8 @@ export function reminderMail(input: ReminderMailInput): { subject: string; text:
         items,
         footer: [],
       };
-  body.footer = [`You get these because of your e-mail settings in "${input.cellarName}".`, `Stop them with one click: ${input.unsubscribeUrl}`];
+  body.footer = [`You get these because of your e-mail settings in "${input.cellarName}".`];
+  body.footerLink = { label: 'Stop them with one click', url: input.unsubscribeUrl };
   return {
     subject: single
       ? `${single.dueOn < input.today ? 'Overdue' : 'Due'}: ${single.title} (${single.subject})`
