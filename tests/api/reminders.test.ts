@@ -94,7 +94,7 @@ describe('the reminder pass', () => {
     // One of the two was due yesterday: the subject counts it overdue, its line says since when (dayjs writes the day).
     const yesterday = dayjs(localDate(new Date(), ZONE)).subtract(1, 'day').format('D MMM YYYY');
     expect(digest!.subject!.startsWith(`${crew.cellar.name}: `)).toBe(true);
-    expect(digest!.subject!.slice(crew.cellar.name.length)).toMatch(/^: \d+ tasks? overdue, \d+ due$/);
+    expect(digest!.subject!.slice(crew.cellar.name.length)).toMatch(/^: \d+ tasks? overdue, \d+ due today$/);
     expect(digest!.text).toContain('Rack off the lees: Heather melomel\nDue today\n');
     expect(digest!.text).toContain(`Check the headspace: Heather melomel\nDue ${yesterday}, 1 day overdue\n`);
     expect(digest!.text).toContain(`${PUBLIC_URL}/c/${crew.cellar.id}/batches/${crew.batchId}`);

@@ -96,7 +96,8 @@ describe('reminder and digest mails', () => {
         task('Take out <oak>', 'Bochet', 'http://x.test/c?a=1&b=2', '2026-11-30'),
       ],
     });
-    expect(mail.subject).toBe('Fernhollow: 2 tasks overdue, 1 due');
+    expect(mail.subject).toBe('Fernhollow: 2 tasks overdue, 1 due today');
+    expect(mail.text.split('\n')[0]).toBe('2 tasks overdue, 1 due today in "Fernhollow"');
     expect(mail.text).toContain('Take out <oak>: Bochet\nDue 30 Nov 2026, 3 days overdue\nhttp://x.test/c?a=1&b=2\n\n');
     expect(mail.text).toContain('Check headspace: Pyment\nDue 2 Dec 2026, 1 day overdue\nhttp://x.test/b\n\n');
     expect(mail.text).toContain('Rack: Cyser\nDue today\nhttp://x.test/a\n\n');
@@ -111,8 +112,11 @@ describe('reminder and digest mails', () => {
 
   it('count a digest with nothing overdue, and one with nothing due today', () => {
     const base = { cellarName: 'Fernhollow', recipientName: 'Maren', today, form: 'digest' as const, unsubscribeUrl };
-    expect(reminderMail({ ...base, tasks: [task('Rack', 'Cyser', 'http://x.test/a')] }).subject).toBe('Fernhollow: 1 task due');
+    expect(reminderMail({ ...base, tasks: [task('Rack', 'Cyser', 'http://x.test/a')] }).subject).toBe('Fernhollow: 1 task due today');
     expect(reminderMail({ ...base, tasks: [task('Rack', 'Cyser', 'http://x.test/a', '2026-12-01')] }).subject).toBe('Fernhollow: 1 task overdue');
+    // A task falling due after the day of the mail (for a caller that looks ahead) counts as due soon.
+    const ahead = [task('Rack', 'Cyser', 'http://x.test/a', '2026-12-05'), task('Taste', 'Cyser', 'http://x.test/a')];
+    expect(reminderMail({ ...base, tasks: ahead }).subject).toBe('Fernhollow: 1 task due today, 1 due soon');
   });
 
   it('refuses to send an empty reminder', () => {

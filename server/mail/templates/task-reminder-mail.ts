@@ -36,12 +36,17 @@ function dueWords(dueOn: string, today: string): string {
   return `Due ${dayMonthYear(dueOn)}, ${count(late, 'day')} overdue`;
 }
 
-/** "7 tasks overdue, 1 due today" (the subject's and the heading's count). */
+/** "7 tasks overdue, 1 due today" (the subject's and the heading's count); the first number carries the noun. */
 function countWords(tasks: readonly ReminderTask[], today: string): string {
-  const overdue = tasks.filter((t) => t.dueOn < today).length;
-  const rest = tasks.length - overdue;
-  if (overdue === 0) return `${count(rest, 'task')} due`;
-  return rest === 0 ? `${count(overdue, 'task')} overdue` : `${count(overdue, 'task')} overdue, ${rest} due`;
+  const groups: [number, string][] = [
+    [tasks.filter((t) => t.dueOn < today).length, 'overdue'],
+    [tasks.filter((t) => t.dueOn === today).length, 'due today'],
+    [tasks.filter((t) => t.dueOn > today).length, 'due soon'],
+  ];
+  return groups
+    .filter(([n]) => n > 0)
+    .map(([n, words], i) => `${i === 0 ? count(n, 'task') : n} ${words}`)
+    .join(', ');
 }
 
 /**
