@@ -1,5 +1,6 @@
 import { dayMonthYear } from '../../../shared/date-words';
 import { daysBetween } from '../../../shared/domain/plans/local-dates';
+import { daysWords } from '../../../shared/domain/plans/period-words';
 import { renderHtml, renderText, type MailBody, type MailItem } from '../mail-layout';
 
 /** One due task as a reminder or digest line shows it. */
@@ -25,15 +26,15 @@ export interface ReminderMailInput {
   form: 'reminder' | 'digest';
 }
 
-/** "1 day", "116 days". */
-const count = (n: number, noun: string) => `${n} ${noun}${n === 1 ? '' : 's'}`;
+/** "1 task", "8 tasks". */
+const tasksWords = (n: number) => `${n} task${n === 1 ? '' : 's'}`;
 
 /** "Due today", or the day and how long ago ("Due 11 Aug 2026, 116 days overdue"). Dates in words: a mail knows no one's date style. */
 function dueWords(dueOn: string, today: string): string {
   const late = daysBetween(dueOn, today);
   if (late === 0) return 'Due today';
   if (late < 0) return `Due ${dayMonthYear(dueOn)}`;
-  return `Due ${dayMonthYear(dueOn)}, ${count(late, 'day')} overdue`;
+  return `Due ${dayMonthYear(dueOn)}, ${daysWords(late)} overdue`;
 }
 
 /** "7 tasks overdue, 1 due today" (the subject's and the heading's count); the first number carries the noun. */
@@ -45,7 +46,7 @@ function countWords(tasks: readonly ReminderTask[], today: string): string {
   ];
   return groups
     .filter(([n]) => n > 0)
-    .map(([n, words], i) => `${i === 0 ? count(n, 'task') : n} ${words}`)
+    .map(([n, words], i) => `${i === 0 ? tasksWords(n) : n} ${words}`)
     .join(', ');
 }
 
@@ -56,33 +57,36 @@ function countWords(tasks: readonly ReminderTask[], today: string): string {
 export function reminderMail(input: ReminderMailInput): { subject: string; text: string; html: string; headers: Record<string, string> } {
   if (input.tasks.length === 0) throw new Error('A reminder needs at least one task.');
   // Longest waiting first (a snoozed task counts from the day its snooze ended); ties keep their order.
-  const byDue = [...input.tasks].sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : 0));
+  const byDue = [...input.tasks].sort((a, b) => a.dueOn.localeCompare(b.dueOn));
+  const overdue = (t: ReminderTask) => t.dueOn < input.today;
   const items: MailItem[] = byDue.map((t) => ({
     title: t.title,
     subject: t.subject,
     detail: dueWords(t.dueOn, input.today),
-    urgent: t.dueOn < input.today,
+    urgent: overdue(t),
     url: t.url,
   }));
+  const smallPrint = {
+    footer: [`You get these because of your e-mail settings in "${input.cellarName}".`],
+    footerLink: { label: 'Stop them with one click', url: input.unsubscribeUrl },
+  };
   const single = input.form === 'reminder' ? input.tasks[0]! : null;
   const body: MailBody = single
     ? {
-        heading: `${single.title} is ${single.dueOn < input.today ? 'overdue' : 'due'}`,
+        heading: `${single.title} is ${overdue(single) ? 'overdue' : 'due'}`,
         paragraphs: [`Hello ${input.recipientName}, in "${input.cellarName}": ${single.title} for ${single.subject}.`, `${items[0]!.detail}.`],
         action: { label: 'Open it', url: single.url },
-        footer: [],
+        ...smallPrint,
       }
     : {
         heading: `${countWords(input.tasks, input.today)} in "${input.cellarName}"`,
         paragraphs: [`Hello ${input.recipientName}, here is the cellar's work, the longest waiting first, each with a link to its batch.`],
         items,
-        footer: [],
+        ...smallPrint,
       };
-  body.footer = [`You get these because of your e-mail settings in "${input.cellarName}".`];
-  body.footerLink = { label: 'Stop them with one click', url: input.unsubscribeUrl };
   return {
     subject: single
-      ? `${single.dueOn < input.today ? 'Overdue' : 'Due'}: ${single.title} (${single.subject})`
+      ? `${overdue(single) ? 'Overdue' : 'Due'}: ${single.title} (${single.subject})`
       : `${input.cellarName}: ${countWords(input.tasks, input.today)}`,
     text: renderText(body),
     html: renderHtml(body),
