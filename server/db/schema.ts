@@ -30,6 +30,7 @@ import { TastingScoresOnOwnScale1796171100000 } from './migrations/1796171100000
 import { ReadableDateWithoutSubtransaction1796171200000 } from './migrations/1796171200000-ReadableDateWithoutSubtransaction';
 import { IndexAdditionsAndRemovals1796171300000 } from './migrations/1796171300000-IndexAdditionsAndRemovals';
 import { AgeMilestoneTitles1796171400000 } from './migrations/1796171400000-AgeMilestoneTitles';
+import { CreateTaskSnapshots1796171500000 } from './migrations/1796171500000-CreateTaskSnapshots';
 
 /** Every entity, listed by hand (glob paths do not work under Vitest). */
 export const entities = [
@@ -69,4 +70,5 @@ export const migrations = [
   ReadableDateWithoutSubtransaction1796171200000,
   IndexAdditionsAndRemovals1796171300000,
   AgeMilestoneTitles1796171400000,
+  CreateTaskSnapshots1796171500000,
 ];

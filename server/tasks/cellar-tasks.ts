@@ -6,12 +6,12 @@ import { planFor, plansOf } from '../plans/plan-queries';
 import { batchFacts, taskBatches, type TaskBatch, type TaskScope } from './task-facts';
 
 /**
- * A cellar's tasks, derived on read: each batch's plan and journal through the rule engine,
- * the one-off tasks, and what people did to them (task_states). Nothing computed is stored,
- * so tasks can never disagree with the journal or with a plan a Keeper just changed.
+ * A cellar's tasks worked out from the record: each batch's plan and journal through the rule
+ * engine, the one-off tasks, and what people did to them (task_states). Lists read the same
+ * answer from the day's snapshots where they are current (task-snapshots.ts), which are made here.
  */
 
-interface StateRow {
+export interface StateRow {
   task_key: string;
   status: Exclude<TaskStatus, 'open'>;
   snoozed_until: string | null;
@@ -49,7 +49,13 @@ function bucketOf(status: TaskStatus, dueOn: string, snoozedUntil: string | null
 }
 
 /** Merges a computed (or one-off) task with what people did to it. */
-function toTask(batch: TaskBatch, computed: ComputedTask, state: StateRow | undefined, today: string, oneOff: boolean): Task {
+export function toTask(
+  batch: Pick<TaskBatch, 'id' | 'name' | 'kind' | 'stage' | 'vesselNames'>,
+  computed: ComputedTask,
+  state: StateRow | undefined,
+  today: string,
+  oneOff: boolean,
+): Task {
   let status: TaskStatus = 'open';
   let closed: Task['closed'] = null;
   let snoozedUntil: string | null = null;
@@ -80,17 +86,26 @@ function toTask(batch: TaskBatch, computed: ComputedTask, state: StateRow | unde
   };
 }
 
-/** Every task of the batches in scope (all statuses), soonest first. */
-export async function cellarTasks(
+/** A batch's task as its plan (or a person, for a one-off) gives it, before what people did to it. */
+export interface ComputedBatchTask {
+  batch: TaskBatch;
+  task: ComputedTask;
+  oneOff: boolean;
+  /** From a repeating rule: only its repeats within the horizon asked for are shown. */
+  repeats: boolean;
+}
+
+/** The computed tasks of the batches in scope, and what people did to them by task key. */
+export async function computeCellarTasks(
   tx: EntityManager,
   cellarId: string,
   timeZone: string,
   scope: TaskScope,
   today: string,
   lookaheadDays: number,
-): Promise<Task[]> {
+): Promise<{ computed: ComputedBatchTask[]; stateOf: Map<string, StateRow> }> {
   const batches = await taskBatches(tx, cellarId, scope);
-  if (batches.length === 0) return [];
+  if (batches.length === 0) return { computed: [], stateOf: new Map() };
   const ids = batches.map((b) => b.id);
   const [plans, facts, states, oneOffs] = [
     await plansOf(tx, cellarId),
@@ -105,17 +120,19 @@ export async function cellarTasks(
       [cellarId, ids],
     )) as OneOffRow[],
   ];
-  const stateOf = new Map(states.map((s) => [s.task_key, s]));
   const doneByHand = new Set(states.filter((s) => s.status === 'done').map((s) => s.task_key));
-  const tasks: Task[] = [];
+  const computed: ComputedBatchTask[] = [];
   for (const batch of batches) {
     const { plan } = planFor(plans, batch);
-    const computed = plan ? computeTasks(plan.rules, facts.get(batch.id)!, { today, lookaheadDays, doneByHand }) : [];
-    for (const c of computed) tasks.push(toTask(batch, c, stateOf.get(c.key), today, false));
+    if (!plan) continue;
+    const repeating = new Set(plan.rules.filter((r) => r.when.type === 'every').map((r) => r.id));
+    for (const task of computeTasks(plan.rules, facts.get(batch.id)!, { today, lookaheadDays, doneByHand })) {
+      computed.push({ batch, task, oneOff: false, repeats: repeating.has(task.ruleId) });
+    }
   }
   const batchById = new Map(batches.map((b) => [b.id, b]));
   for (const o of oneOffs) {
-    const computed: ComputedTask = {
+    const task: ComputedTask = {
       key: `${o.batch_id}/one-off/${o.id}`,
       ruleId: 'one-off',
       what: 'custom',
@@ -126,7 +143,24 @@ export async function cellarTasks(
       note: '',
       doneByJournal: null,
     };
-    tasks.push(toTask(batchById.get(o.batch_id)!, computed, stateOf.get(computed.key), today, true));
+    computed.push({ batch: batchById.get(o.batch_id)!, task, oneOff: true, repeats: false });
   }
-  return tasks.sort((a, b) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
+  return { computed, stateOf: new Map(states.map((s) => [s.task_key, s])) };
+}
+
+/** Soonest first, then by key: the order every task list starts from. */
+export const byDueThenKey = (a: { dueOn: string; key: string }, b: { dueOn: string; key: string }): number =>
+  a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0;
+
+/** Every task of the batches in scope (all statuses), soonest first. */
+export async function cellarTasks(
+  tx: EntityManager,
+  cellarId: string,
+  timeZone: string,
+  scope: TaskScope,
+  today: string,
+  lookaheadDays: number,
+): Promise<Task[]> {
+  const { computed, stateOf } = await computeCellarTasks(tx, cellarId, timeZone, scope, today, lookaheadDays);
+  return computed.map((c) => toTask(c.batch, c.task, stateOf.get(c.task.key), today, c.oneOff)).sort(byDueThenKey);
 }

@@ -11,6 +11,8 @@ import { taskEvents, type TaskEventRow } from '../journal/journal-queries';
 
 export interface TaskScope {
   batchId?: string;
+  /** These batches only (those whose stored tasks are out of date). */
+  batchIds?: string[];
   kind?: BatchKind;
   rackId?: string;
 }
@@ -25,11 +27,14 @@ export interface TaskBatch {
   vesselNames: string[];
 }
 
-/** The cellar's batches that can have tasks (everything not finished), narrowed by the scope. */
-export async function taskBatches(tx: EntityManager, cellarId: string, scope: TaskScope): Promise<TaskBatch[]> {
-  const params: unknown[] = [cellarId];
+/**
+ * SQL conditions on `batches b` for the cellar's batches that can have tasks (everything not
+ * finished), narrowed by the scope; `params` holds the cellar as $1 and gets the scope's values.
+ */
+export function scopeConditions(scope: TaskScope, params: unknown[]): string[] {
   const where = [`b.cellar_id = $1`, `b.stage <> 'finished'`];
   if (scope.batchId) where.push(`b.id = $${params.push(scope.batchId)}`);
+  if (scope.batchIds) where.push(`b.id = ANY($${params.push(scope.batchIds)})`);
   if (scope.kind) where.push(`b.kind = $${params.push(scope.kind)}`);
   if (scope.rackId) {
     const rack = `$${params.push(scope.rackId)}`;
@@ -38,6 +43,13 @@ export async function taskBatches(tx: EntityManager, cellarId: string, scope: Ta
               OR EXISTS (SELECT 1 FROM bottle_lots l JOIN bottle_cases c ON c.lot_id = l.id JOIN placements pl ON pl.case_id = c.id
                          JOIN shelves s ON s.id = pl.shelf_id WHERE l.batch_id = b.id AND s.rack_id = ${rack}))`);
   }
+  return where;
+}
+
+/** The cellar's batches that can have tasks, narrowed by the scope. */
+export async function taskBatches(tx: EntityManager, cellarId: string, scope: TaskScope): Promise<TaskBatch[]> {
+  const params: unknown[] = [cellarId];
+  const where = scopeConditions(scope, params);
   return tx.query(
     `SELECT b.id, b.name, b.kind, b.stage, b.started_on::text AS "startedOn", b.plan_id AS "planId",
             COALESCE(array_agg(v.name ORDER BY v.name) FILTER (WHERE v.id IS NOT NULL), '{}') AS "vesselNames"

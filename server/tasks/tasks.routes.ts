@@ -2,7 +2,9 @@ import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import { z } from 'zod';
 import { dismissRequestSchema, oneOffTaskRequestSchema, snoozeRequestSchema, taskKeySchema, taskListQuerySchema } from '../../shared/schemas/tasks';
-import { cellarHandler } from '../http/handle';
+import { inTransaction } from '../core/unit-of-work';
+import { actorFrom, cellarHandler, handle } from '../http/handle';
+import { refreshTaskSnapshots } from './task-snapshots';
 import { addOneOffTask, dismissTask, listTasks, markTaskDone, reopenTask, snoozeTask } from './tasks.service';
 
 const keyBody = z.object({ key: taskKeySchema });
@@ -14,9 +16,15 @@ const keyBody = z.object({ key: taskKeySchema });
 export function taskRoutes(ds: DataSource): Router {
   const router = Router({ mergeParams: true });
   const cellar = cellarHandler(ds);
+  // The snapshots are brought up to date in a short write transaction of their own, then the
+  // list is read in one snapshot as every GET is (it is right even if that refresh was skipped).
   router.get(
     '/',
-    cellar({ query: taskListQuerySchema }, ({ query }, actor, tx) => listTasks(actor, tx, query)),
+    handle({ query: taskListQuerySchema }, async ({ query }, req) => {
+      const actor = actorFrom(req);
+      await inTransaction(ds, 'write', (tx) => refreshTaskSnapshots(actor, tx));
+      return inTransaction(ds, 'read', (tx) => listTasks(actor, tx, query));
+    }),
   );
   router.post(
     '/done',

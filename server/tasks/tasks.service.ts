@@ -6,18 +6,28 @@ import { requireRole, type Actor } from '../core/actor';
 import { BadRequestError, NotFoundError } from '../http/errors';
 import { cellarTasks } from './cellar-tasks';
 import { cellarToday, findTask } from './task-lookup';
+import { batchesWithoutSnapshot, BUCKET_NUMBER, DONE_SHOWN_DAYS, effectiveDate, SNAPSHOT_LOOKAHEAD_DAYS, snapshotPage } from './task-snapshots';
 
 type TaskListQuery = z.output<typeof taskListQuerySchema>;
 type OneOffTaskRequest = z.output<typeof oneOffTaskRequestSchema>;
 
-/** Done and dismissed tasks stay in the list this many days. */
-const DONE_SHOWN_DAYS = 14;
-const BUCKET_ORDER: Record<TaskBucket, number> = { overdue: 0, today: 1, upcoming: 2, done: 3 };
-const effectiveDate = (t: Task) => t.snoozedUntil ?? t.dueOn;
+/** The list's order: overdue, today, upcoming, done; closed work newest first, the rest soonest first. */
+function listOrder(a: Task, b: Task): number {
+  const byBucket = BUCKET_NUMBER[a.bucket] - BUCKET_NUMBER[b.bucket];
+  if (byBucket !== 0) return byBucket;
+  if (a.bucket === 'done') {
+    if (a.closed!.at !== b.closed!.at) return a.closed!.at < b.closed!.at ? 1 : -1;
+    if (a.dueOn !== b.dueOn) return a.dueOn < b.dueOn ? -1 : 1;
+    return a.key < b.key ? -1 : a.key > b.key ? 1 : 0;
+  }
+  return effectiveDate(a) < effectiveDate(b) ? -1 : effectiveDate(a) > effectiveDate(b) ? 1 : a.key < b.key ? -1 : 1;
+}
 
 /**
  * The Tasks screen: overdue, today's and upcoming tasks (within `withinDays`), and recently
- * closed ones when asked, narrowed to a batch, a kind of batch or a rack.
+ * closed ones when asked, narrowed to a batch, a kind of batch or a rack. Batches with a
+ * current snapshot (task-snapshots.ts) come as one sorted page from SQL; the others are worked
+ * out from their journal here and merged in, so the answer is the same either way.
  */
 export async function listTasks(actor: Actor, tx: EntityManager, query: TaskListQuery): Promise<TaskList> {
   requireRole(actor, 'guest');
@@ -25,24 +35,23 @@ export async function listTasks(actor: Actor, tx: EntityManager, query: TaskList
   const buckets = new Set<TaskBucket>(query.buckets ?? ['overdue', 'today', 'upcoming']);
   const horizon = addDays(today, query.withinDays);
   const doneSince = addDays(today, -DONE_SHOWN_DAYS);
-  const all = await cellarTasks(
-    tx,
-    actor.cellarId,
-    timeZone,
-    { batchId: query.batchId, kind: query.kind, rackId: query.rackId },
-    today,
-    query.withinDays,
-  );
-  const shown = all
+  const scope = { batchId: query.batchId, kind: query.kind, rackId: query.rackId };
+  const fromSnapshots = query.withinDays <= SNAPSHOT_LOOKAHEAD_DAYS;
+  const worked = fromSnapshots ? await batchesWithoutSnapshot(tx, actor.cellarId, scope, today) : null;
+  const derived =
+    worked === null || worked.length > 0
+      ? await cellarTasks(tx, actor.cellarId, timeZone, worked === null ? scope : { ...scope, batchIds: worked }, today, query.withinDays)
+      : [];
+  const shown = derived
     .filter((t) => buckets.has(t.bucket))
     .filter((t) => (t.bucket === 'upcoming' ? effectiveDate(t) <= horizon : t.bucket !== 'done' || t.closed!.at.slice(0, 10) >= doneSince))
-    .sort((a, b) => {
-      const byBucket = BUCKET_ORDER[a.bucket] - BUCKET_ORDER[b.bucket];
-      if (byBucket !== 0) return byBucket;
-      if (a.bucket === 'done') return a.closed!.at < b.closed!.at ? 1 : a.closed!.at > b.closed!.at ? -1 : 0;
-      return effectiveDate(a) < effectiveDate(b) ? -1 : effectiveDate(a) > effectiveDate(b) ? 1 : a.key < b.key ? -1 : 1;
-    });
-  return { today, tasks: shown.slice(0, query.limit), more: Math.max(0, shown.length - query.limit) };
+    .sort(listOrder);
+  const page = fromSnapshots
+    ? await snapshotPage(tx, actor.cellarId, scope, { today, buckets: [...buckets], horizon, limit: query.limit })
+    : { tasks: [], total: 0 };
+  const tasks = [...page.tasks, ...shown.slice(0, query.limit)].sort(listOrder).slice(0, query.limit);
+  const total = page.total + shown.length;
+  return { today, tasks, more: Math.max(0, total - query.limit) };
 }
 
 /**
