@@ -1,4 +1,5 @@
 import path from 'node:path';
+import cron from 'node-cron';
 import { z } from 'zod';
 import { mailEnvShape, mailSettingsFrom, type MailSettings } from './mail/mail-config';
 
@@ -24,6 +25,12 @@ const envSchema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   /** Seed the demo cellar into an empty database on start. */
   SEED_DEMO: booleanFromEnv.default(true),
+  /** When each cellar's task snapshots are brought up to date (cron syntax); "off" leaves it to the first list. */
+  TASK_SNAPSHOT_CRON: z
+    .string()
+    .trim()
+    .refine((v) => v === 'off' || cron.validate(v), { message: 'must be a cron expression such as "*/5 * * * *", or off' })
+    .default('*/5 * * * *'),
   /** SMTP, sender and outbox worker (server/mail/mail-config.ts); no SMTP means the local mailbox. */
   ...mailEnvShape,
 });
@@ -40,6 +47,8 @@ export type AppConfig = Readonly<{
   trustProxy: number;
   publicUrl: string;
   seedDemo: boolean;
+  /** Cron expression of the task snapshot refresh, or null when it is off. */
+  taskSnapshotSchedule: string | null;
   mail: MailSettings;
 }>;
 
@@ -70,6 +79,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: e.TRUST_PROXY,
     publicUrl: (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/$/, ''),
     seedDemo: e.SEED_DEMO,
+    taskSnapshotSchedule: e.TASK_SNAPSHOT_CRON === 'off' ? null : e.TASK_SNAPSHOT_CRON,
     mail: mailSettingsFrom(e),
   });
 }

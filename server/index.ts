@@ -10,6 +10,7 @@ import { ensureDatabase } from './db/ensure-database';
 import { PostgresMissingError, StartupError, startLocalPostgres, type LocalPostgres } from './db/local-postgres';
 import { requireFreePort } from './core/port-check';
 import { startMail } from './mail/mail-setup';
+import { scheduleTaskSnapshotRefresh } from './tasks/task-snapshot-job';
 import { printDemoSignIns, seedDemoIfEmpty } from './seed/demo';
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -47,6 +48,9 @@ async function main(): Promise<void> {
   // The configured SMTP server, or the local mailbox on loopback; and the outbox worker.
   const sessionSecret = sessionSecretFor(config.dataDir, config.sessionSecret);
   const mail = await startMail(dataSource, config.mail, { publicUrl: config.publicUrl, secret: sessionSecret });
+  const taskSnapshots = config.taskSnapshotSchedule
+    ? scheduleTaskSnapshotRefresh(dataSource, { schedule: config.taskSnapshotSchedule, log: (line) => console.log(line) })
+    : null;
 
   const app = createApp({
     dataSource,
@@ -76,8 +80,7 @@ async function main(): Promise<void> {
     console.log(`\n${signal}: stopping…`);
     server.close();
     server.closeAllConnections();
-    mail
-      .stop()
+    Promise.all([mail.stop(), taskSnapshots?.stop()])
       .then(() => dataSource.destroy())
       .catch(() => undefined)
       .finally(() => {

@@ -1,9 +1,8 @@
 import type { EntityManager } from 'typeorm';
 import { addDays } from '../../shared/domain/plans/local-dates';
-import type { BatchKind, Stage } from '../../shared/schemas/batches';
 import type { Task, TaskBucket } from '../../shared/schemas/tasks';
 import { requireRole, type Actor } from '../core/actor';
-import { computeCellarTasks, toTask } from './cellar-tasks';
+import { cellarTasks, computeCellarTasks, toTask } from './cellar-tasks';
 import { scopeConditions, type TaskScope } from './task-facts';
 import { cellarToday } from './task-lookup';
 
@@ -64,119 +63,126 @@ export async function refreshTaskSnapshots(actor: Actor, tx: EntityManager): Pro
   if (stale.length === 0) return 0;
   const batchIds = stale.map((s) => s.batch_id);
   const { computed, stateOf } = await computeCellarTasks(tx, actor.cellarId, timeZone, { batchIds }, today, SNAPSHOT_LOOKAHEAD_DAYS);
+  // Closed work from before any list looks back is left out: no list of this day shows it.
+  const doneSince = addDays(today, -DONE_SHOWN_DAYS);
+  const rows = computed
+    .map((c) => ({ task: toTask(c.batch, c.task, stateOf.get(c.task.key), today, c.oneOff), repeats: c.repeats }))
+    .filter(({ task }) => task.bucket !== 'done' || task.closed!.at.slice(0, 10) >= doneSince);
+  const counts = new Map(batchIds.map((id) => [id, { overdue: 0, today: 0 }]));
+  for (const { task } of rows) {
+    if (task.bucket === 'overdue') counts.get(task.batch.id)!.overdue += 1;
+    if (task.bucket === 'today') counts.get(task.batch.id)!.today += 1;
+  }
   const written: { batch_id: string }[] = await tx.query(
     `WITH mine AS (
        SELECT ts.batch_id FROM task_snapshots ts WHERE ts.batch_id = ANY($1::uuid[]) ORDER BY ts.batch_id FOR UPDATE SKIP LOCKED
      ), stored AS (
-       UPDATE task_snapshots ts SET computed_for = $3::date
-         FROM unnest($1::uuid[], $2::bigint[]) AS v(batch_id, version), mine
+       UPDATE task_snapshots ts SET computed_for = $3::date, overdue_count = v.overdue, today_count = v.today
+         FROM unnest($1::uuid[], $2::bigint[], $4::int[], $5::int[]) AS v(batch_id, version, overdue, today), mine
         WHERE ts.batch_id = v.batch_id AND mine.batch_id = v.batch_id AND ts.inputs_version = v.version
         RETURNING ts.batch_id)
      SELECT batch_id FROM stored`,
-    [batchIds, stale.map((s) => s.inputs_version), today],
+    [batchIds, stale.map((s) => s.inputs_version), today, batchIds.map((id) => counts.get(id)!.overdue), batchIds.map((id) => counts.get(id)!.today)],
   );
   if (written.length === 0) return 0;
   const writtenIds = new Set(written.map((w) => w.batch_id));
   await tx.query(`DELETE FROM snapshot_tasks WHERE batch_id = ANY($1::uuid[])`, [[...writtenIds]]);
-  await tx.query(`DELETE FROM snapshot_task_details WHERE batch_id = ANY($1::uuid[])`, [[...writtenIds]]);
-  // Closed work from before any list looks back is left out: no list of this day shows it.
-  const doneSince = addDays(today, -DONE_SHOWN_DAYS);
-  const rows = computed
-    .filter((c) => writtenIds.has(c.batch.id))
-    .map((c) => ({ task: toTask(c.batch, c.task, stateOf.get(c.task.key), today, c.oneOff), repeats: c.repeats }))
-    .filter(({ task }) => task.bucket !== 'done' || task.closed!.at.slice(0, 10) >= doneSince);
-  for (let i = 0; i < rows.length; i += ROWS_PER_INSERT) {
-    const chunk = rows.slice(i, i + ROWS_PER_INSERT);
-    const keys = chunk.map(({ task }) => task.key);
-    const batches = chunk.map(({ task }) => task.batch.id);
+  const kept = rows.filter(({ task }) => writtenIds.has(task.batch.id));
+  for (let i = 0; i < kept.length; i += ROWS_PER_INSERT) {
+    // One JSON document per statement: PostgreSQL parses it once, quicker than many arrays.
+    const chunk = kept.slice(i, i + ROWS_PER_INSERT).map(({ task, repeats }) => ({
+      batch_id: task.batch.id,
+      task_key: task.key,
+      bucket: BUCKET_NUMBER[task.bucket],
+      closed_order: task.bucket === 'done' ? task.closed!.at : null,
+      sort_on: effectiveDate(task),
+      due_on: task.dueOn,
+      repeats,
+    }));
     await tx.query(
-      `INSERT INTO snapshot_tasks (batch_id, task_key, bucket, closed_order, sort_on, due_on, repeats)
-       SELECT * FROM unnest($1::uuid[], $2::text[], $3::smallint[], $4::text[], $5::date[], $6::date[], $7::boolean[])`,
-      [
-        batches,
-        keys,
-        chunk.map(({ task }) => BUCKET_NUMBER[task.bucket]),
-        chunk.map(({ task }) => (task.bucket === 'done' ? task.closed!.at : null)),
-        chunk.map(({ task }) => effectiveDate(task)),
-        chunk.map(({ task }) => task.dueOn),
-        chunk.map(({ repeats }) => repeats),
-      ],
+      `INSERT INTO snapshot_tasks (batch_id, cellar_id, task_key, bucket, closed_order, sort_on, due_on, repeats)
+       SELECT x.batch_id, $2, x.task_key, x.bucket, x.closed_order, x.sort_on, x.due_on, x.repeats FROM jsonb_to_recordset($1::jsonb)
+         AS x(batch_id uuid, task_key text, bucket smallint, closed_order text, sort_on date, due_on date, repeats boolean)`,
+      [JSON.stringify(chunk), actor.cellarId],
     );
-    await tx.query(`INSERT INTO snapshot_task_details (batch_id, task_key, task) SELECT * FROM unnest($1::uuid[], $2::text[], $3::jsonb[])`, [
-      batches,
-      keys,
-      chunk.map(({ task }) => JSON.stringify(task)),
-    ]);
   }
-  // A day's first refresh rewrites most rows: fresh statistics keep the list's plan a hash join.
+  // A day's first refresh rewrites most rows: fresh statistics keep the page's plans (index walks, a hash join to count).
   if (writtenIds.size >= ANALYZE_AFTER_BATCHES) await tx.query(`ANALYZE task_snapshots, snapshot_tasks`);
   return writtenIds.size;
 }
 
 /** What a page of the list is: the buckets, and the horizon of upcoming work. */
 export interface PageQuery {
+  timeZone: string;
   today: string;
   buckets: TaskBucket[];
   horizon: string;
   limit: number;
 }
 
-interface SnapshotRow {
-  task: Task;
-  batch_name: string;
-  batch_kind: BatchKind;
-  batch_stage: Stage;
-  vessel_names: string[];
-  by_name: string | null;
-  total: string;
-}
-
 /**
  * One page of the list from the batches whose snapshot is current, in the list's order
  * (bucket; closed work newest first; then the day it is due or snoozed to, and the key), and how
- * many tasks pass the filter in all. What can change without touching a snapshot is read as it
- * is now: the batch's name and vessels, and the name of whoever closed a task.
+ * many tasks pass the filter in all; null if a task on the page could not be found again (the
+ * caller then works the whole list out). The snapshot says which tasks are on the page; they
+ * are then worked out for their few batches, so each is exactly what the journal gives now.
  */
 export async function snapshotPage(
   tx: EntityManager,
   cellarId: string,
   scope: TaskScope,
   page: PageQuery,
-): Promise<{ tasks: Task[]; total: number }> {
+): Promise<{ tasks: Task[]; total: number } | null> {
   const params: unknown[] = [cellarId];
   const where = scopeConditions(scope, params);
   const p = (value: unknown) => `$${params.push(value)}`;
-  const horizon = p(page.horizon);
-  const order = `bucket, closed_order DESC NULLS LAST, sort_on, task_key`;
-  const rows: SnapshotRow[] = await tx.query(
+  const [today, limit] = [p(page.today), p(page.limit)];
+  // Sent only if a bucket asked for uses it: PostgreSQL refuses a parameter it never sees.
+  let horizonParam: string | undefined;
+  const horizon = () => (horizonParam ??= p(page.horizon));
+  const current = `ts.computed_for = ${today}::date AND ${where.join(' AND ')}`;
+  // What else a bucket asks: upcoming work within the horizon, and repeats only that far.
+  const beyond = () => `NOT (st.repeats AND st.due_on > ${horizon()}::date)`;
+  const filters: Record<TaskBucket, () => string> = {
+    overdue: () => 'true',
+    today: () => 'true',
+    upcoming: () => `st.sort_on <= ${horizon()}::date AND ${beyond()}`,
+    done: beyond,
+  };
+  const order = `closed_order DESC NULLS LAST, sort_on, task_key`;
+  // Each bucket walks its part of the index in the list's order until the page is full.
+  const walks = page.buckets.map(
+    (bucket) =>
+      `(SELECT st.batch_id, st.task_key, st.bucket, st.closed_order, st.sort_on FROM snapshot_tasks st
+         WHERE st.cellar_id = $1 AND st.bucket = ${BUCKET_NUMBER[bucket]} AND ${filters[bucket]()}
+           AND EXISTS (SELECT 1 FROM task_snapshots ts JOIN batches b ON b.id = ts.batch_id WHERE ts.batch_id = st.batch_id AND ${current})
+         ORDER BY ${order} LIMIT ${limit})`,
+  );
+  // Overdue and today's tasks are counted per batch when stored; the rest are counted here.
+  const counted = page.buckets.filter((b) => b === 'upcoming' || b === 'done');
+  const perBatch = [page.buckets.includes('overdue') ? 'ts.overdue_count' : '0', page.buckets.includes('today') ? 'ts.today_count' : '0'];
+  const rows: { batch_id: string; task_key: string; total: string }[] = await tx.query(
     `WITH fresh AS MATERIALIZED (
-       SELECT b.id FROM batches b JOIN task_snapshots ts ON ts.batch_id = b.id AND ts.computed_for = ${p(page.today)}::date
-        WHERE ${where.join(' AND ')}
-     ), shown AS (
-       SELECT st.batch_id, st.task_key, st.bucket, st.closed_order, st.sort_on
-         FROM snapshot_tasks st
-        WHERE st.batch_id IN (SELECT id FROM fresh) AND st.bucket = ANY(${p(page.buckets.map((b) => BUCKET_NUMBER[b]))}::smallint[])
-          AND NOT (st.repeats AND st.due_on > ${horizon}::date) AND (st.bucket <> 2 OR st.sort_on <= ${horizon}::date)
-     ), picked AS (
-       SELECT top.*, row_number() OVER (ORDER BY ${order}) AS place
-         FROM (SELECT * FROM shown ORDER BY ${order} LIMIT ${p(page.limit)}) top
+       SELECT b.id, ${perBatch.join(' + ')} AS stored FROM batches b JOIN task_snapshots ts ON ts.batch_id = b.id WHERE ${current}
+     ), total AS (
+       SELECT (SELECT coalesce(sum(stored), 0) FROM fresh)
+            + ${
+              counted.length === 0
+                ? '0'
+                : `(SELECT count(*) FROM snapshot_tasks st JOIN fresh f ON f.id = st.batch_id WHERE st.cellar_id = $1
+                     AND (${counted.map((b) => `(st.bucket = ${BUCKET_NUMBER[b]} AND ${filters[b]()})`).join(' OR ')}))`
+            } AS n
      )
-     SELECT d.task, b.name AS batch_name, b.kind AS batch_kind, b.stage AS batch_stage, u.display_name AS by_name,
-            (SELECT count(*) FROM shown) AS total,
-            (SELECT COALESCE(array_agg(v.name ORDER BY v.name), '{}') FROM vessels v WHERE v.batch_id = b.id) AS vessel_names
-       FROM picked pk
-       JOIN snapshot_task_details d ON d.batch_id = pk.batch_id AND d.task_key = pk.task_key
-       JOIN batches b ON b.id = pk.batch_id
-       LEFT JOIN task_states s ON s.cellar_id = $1 AND s.task_key = pk.task_key
-       LEFT JOIN users u ON u.id = s.by_user_id
-      ORDER BY pk.place`,
+     SELECT top.batch_id, top.task_key, (SELECT n FROM total) AS total
+       FROM (${walks.join(' UNION ALL ')}) top
+      ORDER BY top.bucket, top.${order.replaceAll(', ', ', top.')} LIMIT ${limit}`,
     params,
   );
-  const tasks = rows.map(({ task, batch_name, batch_kind, batch_stage, vessel_names, by_name }) => ({
-    ...task,
-    batch: { id: task.batch.id, name: batch_name, kind: batch_kind, stage: batch_stage },
-    vesselNames: vessel_names,
-    closed: task.closed && !task.closed.byJournal ? { ...task.closed, by: by_name } : task.closed,
-  }));
-  return { tasks, total: rows.length > 0 ? Number(rows[0]!.total) : 0 };
+  if (rows.length === 0) return { tasks: [], total: 0 };
+  const batchIds = [...new Set(rows.map((r) => r.batch_id))];
+  const worked = await cellarTasks(tx, cellarId, page.timeZone, { batchIds }, page.today, SNAPSHOT_LOOKAHEAD_DAYS);
+  const byKey = new Map(worked.map((t) => [t.key, t]));
+  const tasks = rows.map((r) => byKey.get(r.task_key));
+  if (tasks.some((t) => t === undefined)) return null;
+  return { tasks: tasks as Task[], total: Number(rows[0]!.total) };
 }

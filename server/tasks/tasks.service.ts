@@ -36,21 +36,19 @@ export async function listTasks(actor: Actor, tx: EntityManager, query: TaskList
   const horizon = addDays(today, query.withinDays);
   const doneSince = addDays(today, -DONE_SHOWN_DAYS);
   const scope = { batchId: query.batchId, kind: query.kind, rackId: query.rackId };
-  const fromSnapshots = query.withinDays <= SNAPSHOT_LOOKAHEAD_DAYS;
-  const worked = fromSnapshots ? await batchesWithoutSnapshot(tx, actor.cellarId, scope, today) : null;
-  const derived =
-    worked === null || worked.length > 0
-      ? await cellarTasks(tx, actor.cellarId, timeZone, worked === null ? scope : { ...scope, batchIds: worked }, today, query.withinDays)
-      : [];
+  const stale = query.withinDays <= SNAPSHOT_LOOKAHEAD_DAYS ? await batchesWithoutSnapshot(tx, actor.cellarId, scope, today) : null;
+  const page = stale && (await snapshotPage(tx, actor.cellarId, scope, { timeZone, today, buckets: [...buckets], horizon, limit: query.limit }));
+  // The batches without a current snapshot are worked out from the journal; all of them when the
+  // snapshots cannot answer (a horizon past theirs).
+  const worked = !page ? scope : stale!.length > 0 ? { ...scope, batchIds: stale! } : null;
+  const derived = worked ? await cellarTasks(tx, actor.cellarId, timeZone, worked, today, query.withinDays) : [];
   const shown = derived
     .filter((t) => buckets.has(t.bucket))
     .filter((t) => (t.bucket === 'upcoming' ? effectiveDate(t) <= horizon : t.bucket !== 'done' || t.closed!.at.slice(0, 10) >= doneSince))
     .sort(listOrder);
-  const page = fromSnapshots
-    ? await snapshotPage(tx, actor.cellarId, scope, { today, buckets: [...buckets], horizon, limit: query.limit })
-    : { tasks: [], total: 0 };
-  const tasks = [...page.tasks, ...shown.slice(0, query.limit)].sort(listOrder).slice(0, query.limit);
-  const total = page.total + shown.length;
+  const fromSnapshots = page ?? { tasks: [], total: 0 };
+  const tasks = [...fromSnapshots.tasks, ...shown.slice(0, query.limit)].sort(listOrder).slice(0, query.limit);
+  const total = fromSnapshots.total + shown.length;
   return { today, tasks, more: Math.max(0, total - query.limit) };
 }
 

@@ -3,6 +3,7 @@ import type { Actor } from '../../server/core/actor';
 import { inTransaction } from '../../server/core/unit-of-work';
 import { seedDemoRecords } from '../../server/seed/demo-cellar';
 import { seedDemoTasks } from '../../server/seed/demo-tasks';
+import { refreshEveryCellarsTaskSnapshots } from '../../server/tasks/task-snapshot-job';
 import { batchesWithoutSnapshot, refreshTaskSnapshots } from '../../server/tasks/task-snapshots';
 import { addOneOffTask, dismissTask, listTasks, markTaskDone, snoozeTask } from '../../server/tasks/tasks.service';
 import { addDays } from '../../shared/domain/plans/local-dates';
@@ -51,11 +52,19 @@ beforeAll(async () => {
   // Every kind of state a person can leave on a task, and a one-off task, besides the demo's snooze.
   const all = await list({ buckets: 'overdue,today,upcoming', withinDays: 60 });
   const open = all.tasks.filter((t) => t.status === 'open');
+  // A repeat marked done before it falls due: closed after an overdue task, yet due after it, and past a short horizon.
+  const nextReading = open.find((t) => t.bucket === 'upcoming' && t.key.includes('/weekly-reading/'));
+  expect(nextReading).toBeDefined();
+  // Closed one after the other (each its own moment), the latest due last.
+  await inTransaction(ds, 'write', (tx) => markTaskDone(hand, tx, open[0]!.key));
+  await inTransaction(ds, 'write', (tx) => markTaskDone(hand, tx, nextReading!.key));
   await inTransaction(ds, 'write', async (tx) => {
-    await markTaskDone(hand, tx, open[0]!.key);
     await dismissTask(hand, tx, open[1]!.key, 'done another way');
     await snoozeTask(hand, tx, open.at(-1)!.key, addDays(all.today, 1));
     await addOneOffTask(keeper, tx, { batchId: open[2]!.batch.id, title: 'Buy new airlocks', dueOn: addDays(all.today, 3), showDaysAhead: 3 });
+    // Two tasks due today, on two batches: today's count is stored per batch.
+    await addOneOffTask(keeper, tx, { batchId: open[2]!.batch.id, title: 'Rinse the funnel', dueOn: all.today, showDaysAhead: 0 });
+    await addOneOffTask(keeper, tx, { batchId: open[0]!.batch.id, title: 'Label the jugs', dueOn: all.today, showDaysAhead: 0 });
   });
 });
 
@@ -69,8 +78,10 @@ describe('a list read from the snapshots', () => {
     { buckets: 'done' },
     // A page cut inside each bucket: the SQL's order decides which tasks make it.
     { buckets: 'done', limit: 2 },
+    { buckets: 'done', withinDays: 0 },
     { buckets: 'upcoming', limit: 2 },
     { buckets: 'overdue', limit: 2 },
+    { buckets: 'today', limit: 1 },
     { buckets: 'overdue,today,upcoming,done', limit: 3 },
     { kind: 'melomel', buckets: 'overdue,today,upcoming,done' },
   ];
@@ -85,6 +96,7 @@ describe('a list read from the snapshots', () => {
     expect(worked.some((l) => l.tasks.some((t) => t.status === 'dismissed'))).toBe(true);
     expect(worked.some((l) => l.more > 0)).toBe(true);
     expect(worked.filter((l) => l.tasks.length === 2 && l.more > 0)).toHaveLength(3);
+    expect(worked.find((l) => l.tasks.length === 1 && l.tasks[0]!.bucket === 'today')!.more).toBeGreaterThan(0);
 
     expect(await refresh()).toBe((await batchIds()).length);
     expect(await outOfDate()).toEqual([]);
@@ -95,18 +107,32 @@ describe('a list read from the snapshots', () => {
     for (const [i, query] of all.entries()) expect([query, await list(query)]).toEqual([query, worked[i]]);
   });
 
-  it('comes from the stored rows while they are current, and never once they are out of date or from another day', async () => {
+  it('takes the page from the stored rows while they are current, and never once they are out of date or from another day', async () => {
     await refresh();
-    const stored = (await list({ limit: 1 })).tasks[0]!;
-    await ds.query(`UPDATE snapshot_task_details SET task = jsonb_set(task, '{title}', '"Stored title"') WHERE task_key = $1`, [stored.key]);
-    // Current: the stored row is what the list shows (so the list really reads them).
-    expect((await list({ limit: 1 })).tasks[0]!.title).toBe('Stored title');
+    const overdue = (await list({ buckets: 'overdue' })).tasks.map((t) => t.key);
+    expect(overdue.length).toBeGreaterThan(2);
+    const last = overdue.at(-1)!;
+    const batchOfLast = last.split('/')[0];
+    // Current: a stored row moved to the front of its bucket makes the page of one (so the list
+    // really reads them; the page is then put in order from the tasks themselves).
+    const firstOverdue = async () => (await list({ buckets: 'overdue', limit: 1 })).tasks.map((t) => t.key);
+    await ds.query(`UPDATE snapshot_tasks SET sort_on = '2000-01-01' WHERE task_key = $1`, [last]);
+    expect(await firstOverdue()).toEqual([last]);
     // Yesterday's snapshot is worked out again.
-    await ds.query(`UPDATE task_snapshots SET computed_for = computed_for - 1 WHERE batch_id = $1`, [stored.batch.id]);
-    expect((await list({ limit: 1 })).tasks[0]!.title).toBe(stored.title);
+    await ds.query(`UPDATE task_snapshots SET computed_for = computed_for - 1 WHERE batch_id = $1`, [batchOfLast]);
+    expect(await firstOverdue()).toEqual([overdue[0]]);
     // A refresh writes it anew.
     expect(await refresh()).toBe(1);
-    expect((await list({ limit: 1 })).tasks[0]!.title).toBe(stored.title);
+    expect(await firstOverdue()).toEqual([overdue[0]]);
+  });
+
+  it('is worked out from the journal whole when a stored task cannot be found again', async () => {
+    await refresh();
+    const query = { buckets: 'overdue,today,upcoming,done' };
+    const before = await list(query);
+    const [first] = before.tasks;
+    await ds.query(`UPDATE snapshot_tasks SET task_key = $2 WHERE task_key = $1`, [first!.key, `${first!.batch.id}/no-such-rule/0`]);
+    expect(await list(query)).toEqual(before);
   });
 });
 
@@ -179,5 +205,16 @@ describe('what puts a snapshot out of date', () => {
     const [one] = await batchIds();
     await ds.query(`UPDATE batches SET notes = 'Smells of honey' WHERE id = $1`, [one]);
     expect(await outOfDate()).toEqual([]);
+  });
+});
+
+describe('the scheduled refresh', () => {
+  it('brings every cellar’s out-of-date snapshots up to date', async () => {
+    await forgetSnapshots();
+    const active = (await batchIds()).length;
+    // Other test files share the database: their cellars may be refreshed too.
+    expect(await refreshEveryCellarsTaskSnapshots(ds)).toBeGreaterThanOrEqual(active);
+    expect(await outOfDate()).toEqual([]);
+    expect(await refresh()).toBe(0);
   });
 });

@@ -14,6 +14,12 @@ describe('loadConfig', () => {
     expect(() => loadConfig({ PORT: 'eighty', DATABASE_URL: 'nope' })).toThrow(/PORT[\s\S]*DATABASE_URL|DATABASE_URL[\s\S]*PORT/);
   });
 
+  it('refreshes task snapshots every five minutes unless turned off, and names a bad schedule', () => {
+    expect(loadConfig({}).taskSnapshotSchedule).toBe('*/5 * * * *');
+    expect(loadConfig({ TASK_SNAPSHOT_CRON: 'off' }).taskSnapshotSchedule).toBeNull();
+    expect(() => loadConfig({ TASK_SNAPSHOT_CRON: 'every day' })).toThrow(/TASK_SNAPSHOT_CRON: must be a cron expression/);
+  });
+
   it('requires a session secret in production and then sends cookies only over HTTPS', () => {
     expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET/);
     const config = loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x'.repeat(40) });

@@ -9,8 +9,8 @@ import type { MigrationInterface, QueryRunner } from 'typeorm';
  * did to its tasks; its one-off tasks) the triggers below, in the same transaction, raise its
  * `inputs_version` and clear `computed_for`, so no service can forget to. A snapshot counts only
  * while `computed_for` is the cellar's today; a refresh stores one only if `inputs_version` is
- * still the one it read before computing. No cellar_id column: the rows are not the cellar's
- * record (archives and fingerprints of a cellar leave them out) and reach it through `batches`.
+ * still the one it read before computing. They are not the cellar's record: a
+ * whole-cellar archive leaves them out, and a restore makes them again.
  */
 export class CreateTaskSnapshots1796171500000 implements MigrationInterface {
   async up(q: QueryRunner): Promise<void> {
@@ -18,15 +18,19 @@ export class CreateTaskSnapshots1796171500000 implements MigrationInterface {
       CREATE TABLE task_snapshots (
         batch_id uuid PRIMARY KEY REFERENCES batches(id) ON DELETE CASCADE,
         inputs_version bigint NOT NULL DEFAULT 1,
-        computed_for date
+        computed_for date,
+        -- Its overdue and today's tasks, for a list's count without reading every row.
+        overdue_count integer NOT NULL DEFAULT 0,
+        today_count integer NOT NULL DEFAULT 0
       )`);
     // What a list filters, sorts and counts on, worked out for the snapshot's day (bucket: 0
     // overdue, 1 today, 2 upcoming, 3 done; closed_order: when it was closed, for done work;
-    // sort_on: the day it is due or snoozed to), kept narrow so a page reads little. The task
-    // itself, as the list sends it, is in snapshot_task_details, read only for the page.
+    // sort_on: the day it is due or snoozed to), kept narrow so a page reads little. The tasks on
+    // a page are then worked out again for their few batches, as the list sends them.
     await q.query(`
       CREATE TABLE snapshot_tasks (
         batch_id uuid NOT NULL REFERENCES task_snapshots(batch_id) ON DELETE CASCADE,
+        cellar_id uuid NOT NULL,
         task_key varchar(200) COLLATE "C" NOT NULL,
         bucket smallint NOT NULL,
         closed_order text COLLATE "C",
@@ -35,13 +39,8 @@ export class CreateTaskSnapshots1796171500000 implements MigrationInterface {
         repeats boolean NOT NULL,
         PRIMARY KEY (batch_id, task_key)
       )`);
-    await q.query(`
-      CREATE TABLE snapshot_task_details (
-        batch_id uuid NOT NULL REFERENCES task_snapshots(batch_id) ON DELETE CASCADE,
-        task_key varchar(200) COLLATE "C" NOT NULL,
-        task jsonb NOT NULL,
-        PRIMARY KEY (batch_id, task_key)
-      )`);
+    // A page walks one bucket of one cellar in the list's order and stops when it is full.
+    await q.query(`CREATE INDEX ix_snapshot_tasks_page ON snapshot_tasks (cellar_id, bucket, closed_order DESC NULLS LAST, sort_on, task_key)`);
     // Marks the batches' snapshots out of date (creating the row for a batch that has none), in
     // batch order so two writers touching several batches lock them in the same order.
     await q.query(`
@@ -114,7 +113,6 @@ export class CreateTaskSnapshots1796171500000 implements MigrationInterface {
     await q.query(`DROP FUNCTION cw_task_batch_changed()`);
     await q.query(`DROP FUNCTION cw_task_rows_changed()`);
     await q.query(`DROP FUNCTION cw_task_inputs_changed(uuid[])`);
-    await q.query(`DROP TABLE snapshot_task_details`);
     await q.query(`DROP TABLE snapshot_tasks`);
     await q.query(`DROP TABLE task_snapshots`);
   }
