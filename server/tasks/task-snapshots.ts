@@ -133,6 +133,7 @@ export async function snapshotPage(
   scope: TaskScope,
   page: PageQuery,
 ): Promise<{ tasks: Task[]; total: number } | null> {
+  if (page.buckets.length === 0) return { tasks: [], total: 0 };
   const params: unknown[] = [cellarId];
   const where = scopeConditions(scope, params);
   const p = (value: unknown) => `$${params.push(value)}`;

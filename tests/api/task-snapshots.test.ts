@@ -74,6 +74,7 @@ describe('a list read from the snapshots', () => {
     { buckets: 'overdue,today,upcoming,done', withinDays: 14 },
     { buckets: 'overdue,today', withinDays: 14, limit: 50 },
     { withinDays: 0 },
+    { buckets: '' },
     { buckets: 'overdue,today,upcoming,done', withinDays: 120 },
     { buckets: 'done' },
     // A page cut inside each bucket: the SQL's order decides which tasks make it.
