@@ -11,7 +11,7 @@ import { batchFacts, taskBatches, type TaskBatch, type TaskScope } from './task-
  * answer from the day's snapshots where they are current (task-snapshots.ts), which are made here.
  */
 
-export interface StateRow {
+interface StateRow {
   task_key: string;
   status: Exclude<TaskStatus, 'open'>;
   snoozed_until: string | null;
@@ -49,13 +49,7 @@ function bucketOf(status: TaskStatus, dueOn: string, snoozedUntil: string | null
 }
 
 /** Merges a computed (or one-off) task with what people did to it. */
-export function toTask(
-  batch: Pick<TaskBatch, 'id' | 'name' | 'kind' | 'stage' | 'vesselNames'>,
-  computed: ComputedTask,
-  state: StateRow | undefined,
-  today: string,
-  oneOff: boolean,
-): Task {
+function toTask(batch: TaskBatch, computed: ComputedTask, state: StateRow | undefined, today: string, oneOff: boolean): Task {
   let status: TaskStatus = 'open';
   let closed: Task['closed'] = null;
   let snoozedUntil: string | null = null;
@@ -86,26 +80,23 @@ export function toTask(
   };
 }
 
-/** A batch's task as its plan (or a person, for a one-off) gives it, before what people did to it. */
-export interface ComputedBatchTask {
-  batch: TaskBatch;
-  task: ComputedTask;
-  oneOff: boolean;
-  /** From a repeating rule: only its repeats within the horizon asked for are shown. */
+/** A task as a list shows it, and whether its rule repeats (a list shows repeats only as far as it looks). */
+export interface WorkedTask {
+  task: Task;
   repeats: boolean;
 }
 
-/** The computed tasks of the batches in scope, and what people did to them by task key. */
-export async function computeCellarTasks(
+/** Every task of the batches in scope (all statuses), soonest first, worked out from the record. */
+export async function workedOutTasks(
   tx: EntityManager,
   cellarId: string,
   timeZone: string,
   scope: TaskScope,
   today: string,
   lookaheadDays: number,
-): Promise<{ computed: ComputedBatchTask[]; stateOf: Map<string, StateRow> }> {
+): Promise<WorkedTask[]> {
   const batches = await taskBatches(tx, cellarId, scope);
-  if (batches.length === 0) return { computed: [], stateOf: new Map() };
+  if (batches.length === 0) return [];
   const ids = batches.map((b) => b.id);
   const [plans, facts, states, oneOffs] = [
     await plansOf(tx, cellarId),
@@ -120,19 +111,20 @@ export async function computeCellarTasks(
       [cellarId, ids],
     )) as OneOffRow[],
   ];
+  const stateOf = new Map(states.map((s) => [s.task_key, s]));
   const doneByHand = new Set(states.filter((s) => s.status === 'done').map((s) => s.task_key));
-  const computed: ComputedBatchTask[] = [];
+  const worked: WorkedTask[] = [];
   for (const batch of batches) {
     const { plan } = planFor(plans, batch);
     if (!plan) continue;
     const repeating = new Set(plan.rules.filter((r) => r.when.type === 'every').map((r) => r.id));
-    for (const task of computeTasks(plan.rules, facts.get(batch.id)!, { today, lookaheadDays, doneByHand })) {
-      computed.push({ batch, task, oneOff: false, repeats: repeating.has(task.ruleId) });
+    for (const c of computeTasks(plan.rules, facts.get(batch.id)!, { today, lookaheadDays, doneByHand })) {
+      worked.push({ task: toTask(batch, c, stateOf.get(c.key), today, false), repeats: repeating.has(c.ruleId) });
     }
   }
   const batchById = new Map(batches.map((b) => [b.id, b]));
   for (const o of oneOffs) {
-    const task: ComputedTask = {
+    const computed: ComputedTask = {
       key: `${o.batch_id}/one-off/${o.id}`,
       ruleId: 'one-off',
       what: 'custom',
@@ -143,24 +135,12 @@ export async function computeCellarTasks(
       note: '',
       doneByJournal: null,
     };
-    computed.push({ batch: batchById.get(o.batch_id)!, task, oneOff: true, repeats: false });
+    worked.push({ task: toTask(batchById.get(o.batch_id)!, computed, stateOf.get(computed.key), today, true), repeats: false });
   }
-  return { computed, stateOf: new Map(states.map((s) => [s.task_key, s])) };
+  return worked.sort(({ task: a }, { task: b }) => (a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
 }
 
-/** Soonest first, then by key: the order every task list starts from. */
-export const byDueThenKey = (a: { dueOn: string; key: string }, b: { dueOn: string; key: string }): number =>
-  a.dueOn < b.dueOn ? -1 : a.dueOn > b.dueOn ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0;
-
 /** Every task of the batches in scope (all statuses), soonest first. */
-export async function cellarTasks(
-  tx: EntityManager,
-  cellarId: string,
-  timeZone: string,
-  scope: TaskScope,
-  today: string,
-  lookaheadDays: number,
-): Promise<Task[]> {
-  const { computed, stateOf } = await computeCellarTasks(tx, cellarId, timeZone, scope, today, lookaheadDays);
-  return computed.map((c) => toTask(c.batch, c.task, stateOf.get(c.task.key), today, c.oneOff)).sort(byDueThenKey);
+export async function cellarTasks(...args: Parameters<typeof workedOutTasks>): Promise<Task[]> {
+  return (await workedOutTasks(...args)).map((w) => w.task);
 }

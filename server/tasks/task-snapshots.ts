@@ -2,14 +2,14 @@ import type { EntityManager } from 'typeorm';
 import { addDays } from '../../shared/domain/plans/local-dates';
 import type { Task, TaskBucket } from '../../shared/schemas/tasks';
 import { requireRole, type Actor } from '../core/actor';
-import { cellarTasks, computeCellarTasks, toTask } from './cellar-tasks';
+import { cellarTasks, workedOutTasks } from './cellar-tasks';
 import { scopeConditions, type TaskScope } from './task-facts';
 import { cellarToday } from './task-lookup';
 
 /**
  * Each batch's tasks kept as the list shows them, for one day (tables and triggers: migration
  * CreateTaskSnapshots), so a list of a large cellar is one sorted page in SQL. A snapshot is
- * made by the same code as a list worked out from the journal (`toTask` over the rule engine's
+ * made by the same code as a list worked out from the journal (`workedOutTasks`, the rule engine's
  * answer) and is used only while nothing it was made from has changed and it is still the
  * cellar's same day; the batches without one are worked out from the journal as before, so a
  * list is right whether or not the snapshots have caught up.
@@ -62,12 +62,10 @@ export async function refreshTaskSnapshots(actor: Actor, tx: EntityManager): Pro
   );
   if (stale.length === 0) return 0;
   const batchIds = stale.map((s) => s.batch_id);
-  const { computed, stateOf } = await computeCellarTasks(tx, actor.cellarId, timeZone, { batchIds }, today, SNAPSHOT_LOOKAHEAD_DAYS);
+  const worked = await workedOutTasks(tx, actor.cellarId, timeZone, { batchIds }, today, SNAPSHOT_LOOKAHEAD_DAYS);
   // Closed work from before any list looks back is left out: no list of this day shows it.
   const doneSince = addDays(today, -DONE_SHOWN_DAYS);
-  const rows = computed
-    .map((c) => ({ task: toTask(c.batch, c.task, stateOf.get(c.task.key), today, c.oneOff), repeats: c.repeats }))
-    .filter(({ task }) => task.bucket !== 'done' || task.closed!.at.slice(0, 10) >= doneSince);
+  const rows = worked.filter(({ task }) => task.bucket !== 'done' || task.closed!.at.slice(0, 10) >= doneSince);
   const counts = new Map(batchIds.map((id) => [id, { overdue: 0, today: 0 }]));
   for (const { task } of rows) {
     if (task.bucket === 'overdue') counts.get(task.batch.id)!.overdue += 1;

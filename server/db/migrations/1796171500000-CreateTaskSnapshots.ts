@@ -9,8 +9,8 @@ import type { MigrationInterface, QueryRunner } from 'typeorm';
  * did to its tasks; its one-off tasks) the triggers below, in the same transaction, raise its
  * `inputs_version` and clear `computed_for`, so no service can forget to. A snapshot counts only
  * while `computed_for` is the cellar's today; a refresh stores one only if `inputs_version` is
- * still the one it read before computing. They are not the cellar's record: a
- * whole-cellar archive leaves them out, and a restore makes them again.
+ * still the one it read before computing. A whole-cellar archive leaves them out, and a restore
+ * makes them again.
  */
 export class CreateTaskSnapshots1796171500000 implements MigrationInterface {
   async up(q: QueryRunner): Promise<void> {
